@@ -1,0 +1,67 @@
+import {
+  isRouteErrorResponse, Link, Links, Meta, Outlet, Scripts, ScrollRestoration, useRouteLoaderData,
+} from "react-router";
+import type { Route } from "./+types/root";
+import "./app.css";
+import { SiteFooter, SiteHeader } from "./components/site-chrome";
+import { CLASS_NAME } from "./domain/hulls";
+
+export function loader({ request }: Route.LoaderArgs) {
+  const url = new URL(request.url);
+  return { className: CLASS_NAME, query: url.pathname === "/search" ? (url.searchParams.get("q") ?? "") : "" };
+}
+
+export function Layout({ children }: { children: React.ReactNode }) {
+  const data = useRouteLoaderData<typeof loader>("root");
+  return (
+    <html lang="en">
+      <head>
+        <meta charSet="utf-8" />
+        <meta name="viewport" content="width=device-width, initial-scale=1" />
+        <Meta />
+        <Links />
+      </head>
+      <body>
+        <SiteHeader className={data?.className ?? CLASS_NAME} query={data?.query ?? ""} />
+        <main id="main" className="mx-auto w-full max-w-5xl flex-1 px-4 py-8 sm:px-6">
+          {children}
+        </main>
+        <SiteFooter />
+        <ScrollRestoration />
+        <Scripts />
+      </body>
+    </html>
+  );
+}
+
+export default function App() {
+  return <Outlet />;
+}
+
+export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  let title = "Something went wrong";
+  let detail = "The page could not be shown. Try again in a moment; if it keeps happening, tell the class moderators.";
+  if (isRouteErrorResponse(error)) {
+    if (error.status === 404) {
+      title = "Page not found";
+      detail = "There is nothing at this address. The write-up may have been withdrawn, or the link mistyped.";
+    } else if (error.status === 503) {
+      title = "Back in a moment";
+      detail = "Sistership cannot reach its database just now. Nothing you saved is lost; try again shortly.";
+    } else {
+      title = `${error.status} ${error.statusText}`;
+      detail = typeof error.data === "string" ? error.data : detail;
+    }
+  } else if (import.meta.env.DEV && error instanceof Error) {
+    detail = error.stack ?? error.message;
+  }
+  return (
+    <section className="mx-auto max-w-2xl py-12">
+      <h1 className="text-step-3 font-semibold">{title}</h1>
+      <p className="mt-4 whitespace-pre-wrap text-ink-soft">{detail}</p>
+      <p className="mt-8">
+        <Link to="/" className="font-medium">Back to the home page</Link>
+      </p>
+    </section>
+  );
+}

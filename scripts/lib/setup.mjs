@@ -1,0 +1,218 @@
+// Set-up shared by `npm start`, `npm run dev` and `npm test`.
+// Uses only Node's own modules: it runs before node_modules exists.
+import { execFileSync, spawn, spawnSync } from "node:child_process";
+import fs from "node:fs";
+import net from "node:net";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+
+export const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
+const isRoot = typeof process.getuid === "function" && process.getuid() === 0;
+
+export class SetupError extends Error {}
+
+export function log(message) {
+  console.log(`[sistership] ${message}`);
+}
+
+export function fail(error) {
+  if (error instanceof SetupError) {
+    console.error(`\n[sistership] ${error.message}\n`);
+  } else {
+    console.error(error);
+  }
+  process.exit(1);
+}
+
+function run(cmd, args, opts = {}) {
+  const r = spawnSync(cmd, args, { stdio: "inherit", cwd: root, ...opts });
+  return r.status ?? 1;
+}
+
+/** npm ci when node_modules is missing or older than the lock file. */
+export function ensureDependencies() {
+  const lock = path.join(root, "package-lock.json");
+  const marker = path.join(root, "node_modules", ".package-lock.json");
+  const stale =
+    !fs.existsSync(marker) || fs.statSync(marker).mtimeMs < fs.statSync(lock).mtimeMs;
+  if (!stale) return;
+  log("installing dependencies (npm ci) ...");
+  if (run("npm", ["ci", "--no-audit", "--no-fund"]) !== 0) {
+    throw new SetupError("npm ci failed (see above). Is the npm registry reachable?");
+  }
+}
+
+function aptInstall(packages, why) {
+  if (!isRoot) {
+    throw new SetupError(
+      `${why} is missing. Install it with: sudo apt-get install -y ${packages.join(" ")}`,
+    );
+  }
+  log(`installing ${packages.join(", ")} from Debian's packages (${why}) ...`);
+  const env = { ...process.env, DEBIAN_FRONTEND: "noninteractive" };
+  // The package lists of a fresh machine may be empty or stale: update once, then install.
+  if (run("apt-get", ["update", "-q"], { env }) !== 0 ||
+      run("apt-get", ["install", "-y", "-q", "--no-install-recommends", ...packages], { env }) !== 0) {
+    throw new SetupError(
+      `apt-get could not install ${packages.join(" ")} (see the messages above). ` +
+        "Check that Debian's package mirrors are reachable, then run the command again.",
+    );
+  }
+}
+
+/** The directory holding initdb, pg_ctl and postgres; installs PostgreSQL when missing. */
+export function ensurePostgres() {
+  const find = () => {
+    const base = "/usr/lib/postgresql";
+    if (!fs.existsSync(base)) return null;
+    const versions = fs
+      .readdirSync(base)
+      .filter((v) => fs.existsSync(path.join(base, v, "bin", "postgres")))
+      .sort((a, b) => Number(b) - Number(a));
+    return versions.length ? path.join(base, versions[0], "bin") : null;
+  };
+  let bin = find();
+  if (!bin) {
+    aptInstall(["postgresql", "postgresql-contrib"], "the PostgreSQL server");
+    bin = find();
+    if (!bin) throw new SetupError("PostgreSQL was installed but its binaries were not found in /usr/lib/postgresql.");
+  }
+  return bin;
+}
+
+/** Debian's Chromium for the browser tests. */
+export function ensureChromium() {
+  const exe = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
+  if (fs.existsSync(exe)) return exe;
+  aptInstall(["chromium"], "Chromium (for the browser tests)");
+  if (!fs.existsSync(exe)) throw new SetupError(`Chromium was installed but ${exe} does not exist.`);
+  return exe;
+}
+
+export function portIsFree(port, host = "127.0.0.1") {
+  return new Promise((resolve) => {
+    const srv = net.createServer();
+    srv.once("error", () => resolve(false));
+    srv.listen(port, host, () => srv.close(() => resolve(true)));
+  });
+}
+
+export async function freePort() {
+  return new Promise((resolve, reject) => {
+    const srv = net.createServer();
+    srv.once("error", reject);
+    srv.listen(0, "127.0.0.1", () => {
+      const { port } = srv.address();
+      srv.close(() => resolve(port));
+    });
+  });
+}
+
+/** Runs a PostgreSQL binary as the postgres system user when we are root (initdb refuses root). */
+function pgCommand(bin, tool, args) {
+  const exe = path.join(bin, tool);
+  return isRoot ? ["runuser", ["-u", "postgres", "--", exe, ...args]] : [exe, args];
+}
+
+function pgRun(bin, tool, args, opts = {}) {
+  const [cmd, argv] = pgCommand(bin, tool, args);
+  return spawnSync(cmd, argv, { encoding: "utf8", cwd: "/", ...opts });
+}
+
+function tail(file, lines = 25) {
+  try {
+    return fs.readFileSync(file, "utf8").trimEnd().split("\n").slice(-lines).join("\n");
+  } catch {
+    return "(no log written)";
+  }
+}
+
+/**
+ * A PostgreSQL cluster of the project's own: created when missing, started on 127.0.0.1:port
+ * with its socket inside the cluster folder. Returns { url(db), stop() }.
+ */
+export async function startCluster({ bin, dir, port }) {
+  dir = path.resolve(dir);
+  const data = path.join(dir, "data");
+  const logFile = path.join(dir, "postgres.log");
+  fs.mkdirSync(dir, { recursive: true });
+  if (isRoot) {
+    // The postgres user must be able to enter every folder on the way to the cluster.
+    const probe = spawnSync("runuser", ["-u", "postgres", "--", "test", "-w", dir], { cwd: "/" });
+    if (probe.status !== 0) {
+      execFileSync("chown", ["postgres:postgres", dir]);
+      const again = spawnSync("runuser", ["-u", "postgres", "--", "test", "-w", dir], { cwd: "/" });
+      if (again.status !== 0) {
+        throw new SetupError(
+          `The postgres system user cannot reach ${dir} (a parent folder is closed to it). ` +
+            "Set SISTERSHIP_PG_DIR to a folder it can reach, e.g. /tmp/sistership-pg.",
+        );
+      }
+    }
+  }
+
+  if (!fs.existsSync(path.join(data, "PG_VERSION"))) {
+    log(`creating a PostgreSQL cluster in ${data} ...`);
+    const r = pgRun(bin, "initdb", ["-D", data, "-U", "postgres", "--auth=trust", "-E", "UTF8", "--locale=C.UTF-8"]);
+    if (r.status !== 0) {
+      throw new SetupError(`initdb failed:\n${r.stdout}\n${r.stderr}`);
+    }
+  }
+
+  // A cluster left running by an earlier run (a crash or kill -9): stop it first.
+  if (fs.existsSync(path.join(data, "postmaster.pid"))) {
+    pgRun(bin, "pg_ctl", ["-D", data, "-m", "fast", "-w", "stop"]);
+  }
+  if (!(await portIsFree(port))) {
+    throw new SetupError(
+      `Port ${port} on 127.0.0.1 is busy, so PostgreSQL cannot listen there. ` +
+        "Stop whatever uses it, or pick another port with SISTERSHIP_PG_PORT.",
+    );
+  }
+  const opts = `-c listen_addresses=127.0.0.1 -p ${port} -k ${dir} -c fsync=off -c full_page_writes=off`;
+  const r = pgRun(bin, "pg_ctl", ["-D", data, "-l", logFile, "-o", opts, "-w", "-t", "30", "start"]);
+  if (r.status !== 0) {
+    throw new SetupError(
+      `PostgreSQL would not start. The last lines of its log (${logFile}):\n\n${tail(logFile)}`,
+    );
+  }
+  let stopped = false;
+  const stop = () => {
+    if (stopped) return;
+    stopped = true;
+    pgRun(bin, "pg_ctl", ["-D", data, "-m", "fast", "-w", "stop"], { stdio: "ignore" });
+  };
+  const psql = (sql, db = "postgres") =>
+    pgRun(bin, "psql", ["-h", "127.0.0.1", "-p", String(port), "-U", "postgres", "-d", db, "-v", "ON_ERROR_STOP=1", "-qAtc", sql]);
+  return {
+    port,
+    url: (db) => `postgres://postgres@127.0.0.1:${port}/${db}`,
+    stop,
+    psql,
+    createDatabase(name, template) {
+      const exists = psql(`select 1 from pg_database where datname = '${name}'`);
+      if (exists.stdout.trim() === "1") return false;
+      const r2 = psql(`create database "${name}"${template ? ` template "${template}"` : ""}`);
+      if (r2.status !== 0) throw new SetupError(`Could not create database ${name}: ${r2.stderr}`);
+      return true;
+    },
+  };
+}
+
+/** Runs a TypeScript script of ours with tsx. */
+export function runTs(script, args = [], env = process.env) {
+  const tsx = path.join(root, "node_modules", ".bin", "tsx");
+  const status = run(tsx, [script, ...args], { env });
+  if (status !== 0) throw new SetupError(`${script} failed (see above).`);
+}
+
+export function bin(name) {
+  return path.join(root, "node_modules", ".bin", name);
+}
+
+/** Starts a long-running child that shares our terminal; resolves its exit code. */
+export function spawnChild(cmd, args, env) {
+  const child = spawn(cmd, args, { stdio: "inherit", cwd: root, env });
+  const done = new Promise((resolve) => child.on("exit", (code, signal) => resolve(code ?? (signal ? 1 : 0))));
+  return { child, done };
+}

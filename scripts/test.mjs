@@ -1,0 +1,83 @@
+// `npm test`: its own throwaway PostgreSQL, then typecheck, unit, integration and browser tests.
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import {
+  bin, ensureChromium, ensureDependencies, ensurePostgres, fail, freePort, log, root, runTs,
+  SetupError, spawnChild, startCluster,
+} from "./lib/setup.mjs";
+
+async function step(name, cmd, args, env) {
+  log(`${name} ...`);
+  const started = Date.now();
+  const { done } = spawnChild(cmd, args, env);
+  const code = await done;
+  if (code !== 0) throw new SetupError(`${name} failed (exit code ${code}).`);
+  log(`${name}: passed in ${((Date.now() - started) / 1000).toFixed(1)} s`);
+}
+
+async function waitForHealth(url, server, seconds = 30) {
+  const until = Date.now() + seconds * 1000;
+  while (Date.now() < until) {
+    if (server.child.exitCode !== null) throw new SetupError("The app server exited before it was ready.");
+    try {
+      const r = await fetch(url);
+      if (r.ok) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new SetupError(`The app server did not answer ${url} within ${seconds} s.`);
+}
+
+async function main() {
+  const started = Date.now();
+  ensureDependencies();
+  const pgBin = ensurePostgres();
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), "sistership-test-"));
+  fs.chmodSync(dir, 0o755);
+  const cluster = await startCluster({ bin: pgBin, dir, port: await freePort() });
+  let server = null;
+  const cleanup = () => {
+    server?.child.kill("SIGTERM");
+    cluster.stop();
+    if (!process.env.SISTERSHIP_KEEP_TEST_DB) fs.rmSync(dir, { recursive: true, force: true });
+  };
+  process.on("exit", cleanup);
+  for (const signal of ["SIGINT", "SIGTERM"]) process.on(signal, () => process.exit(130));
+
+  // Two templates: migrated and empty; migrated and seeded. Test files copy one of them.
+  cluster.createDatabase("template_empty");
+  runTs("scripts/migrate.ts", [], { ...process.env, DATABASE_URL: cluster.url("template_empty") });
+  cluster.createDatabase("template_seeded", "template_empty");
+  runTs("scripts/seed.ts", [], { ...process.env, DATABASE_URL: cluster.url("template_seeded") });
+
+  const env = {
+    ...process.env,
+    NODE_ENV: "test",
+    TEST_PG_ADMIN_URL: cluster.url("postgres"),
+    DATABASE_URL: cluster.url("template_seeded"),
+  };
+  await step("typecheck", bin("react-router"), ["typegen"], env);
+  await step("typecheck (tsc)", bin("tsc"), [], env);
+  await step("unit tests", bin("vitest"), ["run", "--project", "unit"], env);
+  await step("integration tests", bin("vitest"), ["run", "--project", "integration"], env);
+
+  // Browser tests: the production build against a seeded database of its own.
+  const chromium = ensureChromium();
+  cluster.createDatabase("e2e", "template_seeded");
+  const e2eEnv = { ...process.env, NODE_ENV: "production", DATABASE_URL: cluster.url("e2e") };
+  await step("build", bin("react-router"), ["build"], e2eEnv);
+  const port = await freePort();
+  server = spawnChild(bin("react-router-serve"), ["./build/server/index.js"], { ...e2eEnv, HOST: "127.0.0.1", PORT: String(port) });
+  const baseUrl = `http://127.0.0.1:${port}`;
+  await waitForHealth(`${baseUrl}/api/health`, server);
+  await step("browser tests", bin("vitest"), ["run", "--project", "e2e"], {
+    ...env, BASE_URL: baseUrl, CHROMIUM_PATH: chromium, E2E_DATABASE_URL: cluster.url("e2e"),
+    ARTIFACTS_DIR: path.join(root, "test-artifacts"),
+  });
+  log(`all tests passed in ${((Date.now() - started) / 1000).toFixed(0)} s`);
+}
+
+main().catch(fail);

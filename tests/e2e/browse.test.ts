@@ -1,0 +1,89 @@
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { BASE_URL, launchBrowser, screenshotPath } from "../support/browser";
+import { readSeedWriteups } from "../support/seed-files";
+
+let browser: Browser;
+let page: Page;
+const errors: string[] = [];
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+  page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+  page.on("pageerror", (e) => errors.push(e.message));
+  page.on("console", (m) => { if (m.type() === "error") errors.push(m.text()); });
+});
+afterAll(async () => browser?.close());
+
+const published = readSeedWriteups()
+  .filter((w) => w.status === "published")
+  .sort((a, b) => String(b.publishedAt).localeCompare(String(a.publishedAt)));
+
+describe("a new owner browsing", () => {
+  it("sees the newest published write-ups and the systems on the home page", async () => {
+    const response = await page.goto(BASE_URL);
+    expect(response?.status()).toBe(200);
+    await expect(page.locator("h1").first().textContent()).resolves.toContain("What owners have done");
+    const titles = await page.locator("#recent-heading ~ div article h3").allTextContents();
+    expect(titles).toEqual(published.slice(0, 6).map((w) => w.title));
+    const systems = page.locator("#systems-heading ~ ul li");
+    expect(await systems.count()).toBe(11);
+    await expect(page.getByRole("link", { name: /Electrical/ }).first().isVisible()).resolves.toBe(true);
+    // The font is served by the app itself.
+    const fontOk = await page.evaluate(async () => { await document.fonts.ready; return document.fonts.check('16px "Literata"'); });
+    expect(fontOk).toBe(true);
+    await page.screenshot({ path: screenshotPath("home"), fullPage: true });
+  });
+
+  it("opens a write-up and reads its rendered Markdown, parts and cautions", async () => {
+    const target = published.find((w) => w.systems.includes("electrical"))!;
+    await page.goto(BASE_URL);
+    await page.getByRole("link", { name: target.title }).first().click();
+    await page.waitForURL(`**/writeups/${target.slug}`);
+    expect(await page.locator("h1").textContent()).toBe(target.title);
+    // A heading from the Markdown body is rendered as a heading with an anchor id.
+    const firstHeading = /^##\s+(.+)$/m.exec(target.body)?.[1];
+    expect(firstHeading).toBeTruthy();
+    const h2 = page.locator(".prose h2").first();
+    expect((await h2.textContent())?.trim()).toBe(firstHeading!.replace(/[*_`]/g, "").trim());
+    expect(await h2.getAttribute("id")).toMatch(/^[a-z0-9-]+$/);
+    await expect(page.getByRole("heading", { name: "Before you start" }).isVisible()).resolves.toBe(true);
+    expect(await page.getByText("33 CFR 183.420", { exact: false }).count()).toBeGreaterThan(0);
+    await page.screenshot({ path: screenshotPath("writeup"), fullPage: true });
+  });
+
+  it("shows a clear page for an unknown address, with status 404", async () => {
+    const response = await page.goto(`${BASE_URL}/writeups/no-such-thing`);
+    expect(response?.status()).toBe(404);
+    expect(await page.locator("h1").textContent()).toBe("Page not found");
+    const other = await page.goto(`${BASE_URL}/nowhere/at/all`);
+    expect(other?.status()).toBe(404);
+  });
+
+  it("searches from the header box", async () => {
+    await page.goto(BASE_URL);
+    await page.getByLabel("Search write-ups").fill("battery");
+    await page.getByRole("button", { name: "Search" }).click();
+    await page.waitForURL("**/search?q=battery");
+    expect(await page.locator("main article").count()).toBeGreaterThan(0);
+  });
+
+  it("links to the safety page from the footer", async () => {
+    await page.goto(BASE_URL);
+    await page.getByRole("link", { name: "Safety and the limits of this advice" }).click();
+    await page.waitForURL("**/safety");
+    const text = await page.locator("main").textContent();
+    expect(text).toContain("33 CFR Part 183");
+    expect(text).toContain("licensed or certified professional");
+  });
+
+  it("reports a healthy database on /api/health", async () => {
+    const r = await fetch(`${BASE_URL}/api/health`);
+    expect(r.status).toBe(200);
+    expect(await r.json()).toMatchObject({ ok: true, database: "up" });
+  });
+
+  it("logged no errors in the browser", () => {
+    expect(errors).toEqual([]);
+  });
+});

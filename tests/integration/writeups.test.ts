@@ -1,0 +1,58 @@
+import { sql } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import {
+  getPublishedWriteup, listPublishedBySystem, listRecentPublished, listSystemsWithCounts, searchPublished,
+} from "~/models/writeups.server";
+import { createTestDatabase } from "../support/db";
+import { readSeedWriteups } from "../support/seed-files";
+
+let t: Awaited<ReturnType<typeof createTestDatabase>>;
+beforeAll(async () => {
+  t = await createTestDatabase("template_seeded");
+});
+afterAll(async () => t?.drop());
+
+const seed = readSeedWriteups();
+const published = seed.filter((w) => w.status === "published");
+
+describe("published write-ups on the seeded demo class", () => {
+  it("lists only published write-ups, newest first", async () => {
+    const recent = await listRecentPublished(t.db, 100);
+    expect(recent.map((w) => w.slug).sort()).toEqual(published.map((w) => w.slug).sort());
+    const dates = recent.map((w) => w.publishedAt!.getTime());
+    expect(dates).toEqual([...dates].sort((a, b) => b - a));
+  });
+
+  it("counts per system match a count made from the seed files", async () => {
+    const counts = await listSystemsWithCounts(t.db);
+    for (const row of counts) {
+      const expected = published.filter((w) => w.systems.includes(row.slug)).length;
+      expect({ system: row.slug, count: row.count }).toEqual({ system: row.slug, count: expected });
+    }
+    const bySystem = await listPublishedBySystem(t.db, "electrical");
+    expect(bySystem.length).toBe(published.filter((w) => w.systems.includes("electrical")).length);
+  });
+
+  it("does not show a write-up that is not published", async () => {
+    const unpublished = seed.filter((w) => w.status !== "published");
+    expect(unpublished.length).toBeGreaterThan(0);
+    for (const w of unpublished) expect(await getPublishedWriteup(t.db, w.slug)).toBeNull();
+  });
+
+  it("returns a published write-up with its parts, systems and Markdown", async () => {
+    const w = await getPublishedWriteup(t.db, published[0].slug);
+    expect(w?.title).toBe(published[0].title);
+    expect(w?.bodyMarkdown.trim()).toBe(published[0].body.trim());
+    expect(w?.systems.map((s) => s.slug).sort()).toEqual([...published[0].systems].sort());
+  });
+
+  it("search ranks a title match above a body-only match", async () => {
+    // Find a word that is in one published title and only in the body of another.
+    await t.db.execute(sql`update writeups set title = 'Quietening the halyards at anchor', body_text = body_text || ' ' where slug = ${published[0].slug}`);
+    await t.db.execute(sql`update writeups set body_text = body_text || ' The halyards slapped all night.' where slug = ${published[1].slug}`);
+    const results = await searchPublished(t.db, "halyards");
+    const slugs = results.map((r) => r.slug);
+    expect(slugs).toContain(published[1].slug);
+    expect(slugs.indexOf(published[0].slug)).toBeLessThan(slugs.indexOf(published[1].slug));
+  });
+});
