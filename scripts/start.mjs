@@ -1,12 +1,52 @@
 // `npm start` (production build) and `npm run dev` (development server), with their own PostgreSQL.
+import crypto from "node:crypto";
+import fs from "node:fs";
 import path from "node:path";
 import {
-  bin, ensureDependencies, ensurePostgres, fail, log, portIsFree, root, runTs, SetupError,
-  spawnChild, startCluster,
+  bin, ensureDependencies, ensurePostgres, fail, isLoopbackHost, log, portIsFree, root, runTs, SetupError,
+  spawnChild, startCluster, startMailStandin,
 } from "./lib/setup.mjs";
 
 const dev = process.argv.includes("--dev");
 const migrateOnly = process.argv.includes("--migrate-only");
+
+/** SESSION_SECRET from the environment, or one made once and kept in .data/ (gitignored). */
+function sessionSecret() {
+  if (process.env.SESSION_SECRET) return process.env.SESSION_SECRET;
+  const file = path.join(root, ".data", "session-secret");
+  if (!fs.existsSync(file)) {
+    fs.mkdirSync(path.dirname(file), { recursive: true });
+    fs.writeFileSync(file, crypto.randomBytes(32).toString("hex"), { mode: 0o600 });
+  }
+  return fs.readFileSync(file, "utf8").trim();
+}
+
+/**
+ * Outgoing mail. With SMTP_HOST naming another machine, the app sends through that relay. Otherwise
+ * the SMTP stand-in runs on 127.0.0.1:SMTP_PORT (2525) and keeps every message in .data/mail.
+ * Returns the stand-in (or null) and the variables the app needs.
+ */
+async function startMail() {
+  const host = process.env.SMTP_HOST;
+  if (host && !isLoopbackHost(host)) {
+    log(`sending mail through the SMTP relay ${host}:${process.env.SMTP_PORT ?? 2525} (no local stand-in)`);
+    return { standin: null, env: {} };
+  }
+  const port = Number(process.env.SMTP_PORT ?? 2525);
+  if (!Number.isInteger(port) || port < 1 || port > 65535) {
+    throw new SetupError(`SMTP_PORT=${process.env.SMTP_PORT} is not a port number.`);
+  }
+  if (!(await portIsFree(port))) {
+    throw new SetupError(
+      `Port ${port} on 127.0.0.1 is busy, so the mail stand-in (a local SMTP server that keeps the ` +
+        "app's outgoing mail) cannot listen there: another program (perhaps an earlier npm start) is using it. " +
+        `Stop it, or choose another port: SMTP_PORT=${port + 1} npm start`,
+    );
+  }
+  const dir = path.resolve(process.env.MAIL_STANDIN_DIR ?? path.join(root, ".data", "mail"));
+  const standin = await startMailStandin({ port, dir });
+  return { standin, env: { SMTP_HOST: "127.0.0.1", SMTP_PORT: String(port), MAIL_STANDIN_DIR: dir } };
+}
 
 async function main() {
   ensureDependencies();
@@ -14,6 +54,8 @@ async function main() {
   const port = Number(process.env.PORT ?? 3000);
 
   let cluster = null;
+  let standin = null;
+  let stopping = false;
   let databaseUrl = process.env.DATABASE_URL;
   if (databaseUrl) {
     log("using the database in DATABASE_URL (PostgreSQL is not managed by this script)");
@@ -28,10 +70,14 @@ async function main() {
     databaseUrl = cluster.url("sistership");
     log(`PostgreSQL is listening on 127.0.0.1:${cluster.port}`);
   }
-  const stopAll = () => cluster?.stop();
+  const stopAll = () => {
+    stopping = true;
+    standin?.child.kill("SIGTERM");
+    cluster?.stop();
+  };
   process.on("exit", stopAll);
 
-  const env = { ...process.env, DATABASE_URL: databaseUrl };
+  const env = { ...process.env, DATABASE_URL: databaseUrl, SESSION_SECRET: sessionSecret(), APP_URL: process.env.APP_URL ?? `http://${host}:${port}` };
   runTs("scripts/migrate.ts", [], env);
   if (migrateOnly) return;
   runTs("scripts/seed.ts", ["--if-empty"], env);
@@ -42,6 +88,12 @@ async function main() {
         "Stop it, or choose another port: PORT=3001 npm start",
     );
   }
+  const mail = await startMail();
+  standin = mail.standin;
+  standin?.done.then((code) => {
+    if (!stopping) log(`the mail stand-in stopped (exit code ${code}); outgoing mail waits in the outbox until it runs again`);
+  });
+  Object.assign(env, mail.env);
 
   let server;
   if (dev) {
@@ -52,13 +104,16 @@ async function main() {
     log("building the app ...");
     const build = spawnChild(bin("react-router"), ["build"], { ...env, NODE_ENV: "production" });
     if ((await build.done) !== 0) throw new SetupError("The build failed (see above).");
-    server = spawnChild(bin("react-router-serve"), ["./build/server/index.js"], {
+    server = spawnChild(process.execPath, ["scripts/serve.mjs"], {
       ...env, NODE_ENV: "production", HOST: host, PORT: String(port),
     });
-    log(`serving Sistership on http://${host}:${port} (Ctrl-C stops the app and its PostgreSQL)`);
+    log(`serving Sistership on http://${host}:${port} (Ctrl-C stops the app, its PostgreSQL and its mail stand-in)`);
   }
   for (const signal of ["SIGINT", "SIGTERM"]) {
-    process.on(signal, () => server.child.kill("SIGTERM"));
+    process.on(signal, () => {
+      stopping = true;
+      server.child.kill("SIGTERM");
+    });
   }
   const code = await server.done;
   stopAll();

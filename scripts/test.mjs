@@ -1,10 +1,11 @@
 // `npm test`: its own throwaway PostgreSQL, then typecheck, unit, integration and browser tests.
+import crypto from "node:crypto";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import {
   bin, ensureChromium, ensureDependencies, ensurePostgres, fail, freePort, log, root, runTs,
-  SetupError, spawnChild, startCluster,
+  SetupError, spawnChild, startCluster, startMailStandin,
 } from "./lib/setup.mjs";
 
 async function step(name, cmd, args, env) {
@@ -39,8 +40,10 @@ async function main() {
   fs.chmodSync(dir, 0o755);
   const cluster = await startCluster({ bin: pgBin, dir, port: await freePort() });
   let server = null;
+  let standin = null;
   const cleanup = () => {
     server?.child.kill("SIGTERM");
+    standin?.child.kill("SIGTERM");
     cluster.stop();
     if (!process.env.SISTERSHIP_KEEP_TEST_DB) fs.rmSync(dir, { recursive: true, force: true });
   };
@@ -53,8 +56,16 @@ async function main() {
   cluster.createDatabase("template_seeded", "template_empty");
   runTs("scripts/seed.ts", [], { ...process.env, DATABASE_URL: cluster.url("template_seeded") });
 
+  // The SMTP stand-in of this run, on a free port, keeping mail in a folder of its own; every test
+  // layer and the app under test send to it (never to a relay named in SMTP_HOST) and read it.
+  const mailDir = path.join(dir, "mail");
+  const smtpPort = await freePort();
+  standin = await startMailStandin({ port: smtpPort, dir: mailDir });
+  const mailEnv = { SMTP_HOST: "127.0.0.1", SMTP_PORT: String(smtpPort), MAIL_STANDIN_DIR: mailDir };
+
   const env = {
     ...process.env,
+    ...mailEnv,
     NODE_ENV: "test",
     TEST_PG_ADMIN_URL: cluster.url("postgres"),
     DATABASE_URL: cluster.url("template_seeded"),
@@ -67,14 +78,18 @@ async function main() {
   // Browser tests: the production build against a seeded database of its own.
   const chromium = ensureChromium();
   cluster.createDatabase("e2e", "template_seeded");
-  const e2eEnv = { ...process.env, NODE_ENV: "production", DATABASE_URL: cluster.url("e2e") };
+  const e2eEnv = {
+    ...process.env, ...mailEnv, NODE_ENV: "production", DATABASE_URL: cluster.url("e2e"),
+    SESSION_SECRET: crypto.randomBytes(32).toString("hex"),
+  };
   await step("build", bin("react-router"), ["build"], e2eEnv);
   const port = await freePort();
-  server = spawnChild(bin("react-router-serve"), ["./build/server/index.js"], { ...e2eEnv, HOST: "127.0.0.1", PORT: String(port) });
   const baseUrl = `http://127.0.0.1:${port}`;
+  // APP_URL: the links the app mails (verification, password reset) must lead back to this server.
+  server = spawnChild(process.execPath, ["scripts/serve.mjs"], { ...e2eEnv, HOST: "127.0.0.1", PORT: String(port), APP_URL: baseUrl });
   await waitForHealth(`${baseUrl}/api/health`, server);
   await step("browser tests", bin("vitest"), ["run", "--project", "e2e"], {
-    ...env, BASE_URL: baseUrl, CHROMIUM_PATH: chromium, E2E_DATABASE_URL: cluster.url("e2e"),
+    ...env, E2E_BASE_URL: baseUrl, CHROMIUM_PATH: chromium, E2E_DATABASE_URL: cluster.url("e2e"),
     ARTIFACTS_DIR: path.join(root, "test-artifacts"),
   });
   log(`all tests passed in ${((Date.now() - started) / 1000).toFixed(0)} s`);

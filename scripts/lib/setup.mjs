@@ -210,6 +210,44 @@ export function bin(name) {
   return path.join(root, "node_modules", ".bin", name);
 }
 
+/** True for a host name or address of this machine's loopback interface. */
+export function isLoopbackHost(host) {
+  return host === "localhost" || host === "::1" || /^127\.\d{1,3}\.\d{1,3}\.\d{1,3}$/.test(host);
+}
+
+/** Resolves once something accepts connections on host:port; fails when `child` exits first. */
+export async function waitForPort(port, host, child, what, seconds = 20) {
+  const until = Date.now() + seconds * 1000;
+  while (Date.now() < until) {
+    if (child.exitCode !== null || child.signalCode !== null) {
+      throw new SetupError(`${what} exited before it was ready (see above).`);
+    }
+    const open = await new Promise((resolve) => {
+      const socket = net.connect(port, host);
+      socket.once("connect", () => { socket.destroy(); resolve(true); });
+      socket.once("error", () => resolve(false));
+    });
+    if (open) return;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new SetupError(`${what} did not listen on ${host}:${port} within ${seconds} s.`);
+}
+
+/**
+ * The SMTP stand-in (scripts/smtp-standin.ts) as a child on 127.0.0.1:port, keeping what it
+ * receives in `dir`; resolves once it accepts connections. Returns what spawnChild returns.
+ */
+export async function startMailStandin({ port, dir, env = process.env }) {
+  const standin = spawnChild(bin("tsx"), ["scripts/smtp-standin.ts", "--port", String(port), "--dir", dir], env);
+  try {
+    await waitForPort(port, "127.0.0.1", standin.child, "The mail stand-in");
+  } catch (error) {
+    standin.child.kill("SIGTERM");
+    throw error;
+  }
+  return standin;
+}
+
 /** Starts a long-running child that shares our terminal; resolves its exit code. */
 export function spawnChild(cmd, args, env) {
   const child = spawn(cmd, args, { stdio: "inherit", cwd: root, env });
