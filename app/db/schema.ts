@@ -155,3 +155,51 @@ export const writeupSpaces = pgTable("writeup_spaces", {
   writeupId: integer("writeup_id").notNull().references(() => writeups.id, { onDelete: "cascade" }),
   spaceId: integer("space_id").notNull().references(() => spaces.id, { onDelete: "cascade" }),
 }, (t) => [primaryKey({ columns: [t.writeupId, t.spaceId] })]);
+
+// --- Accounts: sessions, one-time links, rate limits ---
+
+export const tokenKindEnum = pgEnum("token_kind", ["verify_email", "reset_password"]);
+
+/** A signed-in browser. The cookie carries only this row's id; revoking deletes the row. */
+export const sessions = pgTable("sessions", {
+  id: text("id").primaryKey(),
+  userId: integer("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+  createdAt: createdAt(),
+  lastSeenAt: timestamp("last_seen_at", { withTimezone: true }).notNull().defaultNow(),
+  expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+  userAgent: text("user_agent").notNull().default(""),
+}, (t) => [index("sessions_user_idx").on(t.userId)]);
+
+/** E-mail verification and password-reset links: only a hash of the token is stored. */
+export const authTokens = pgTable("auth_tokens", {
+  id: serial("id").primaryKey(),
+  userId: integer("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+  kind: tokenKindEnum("kind").notNull(),
+  tokenHash: text("token_hash").notNull().unique(),
+  expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+  usedAt: timestamp("used_at", { withTimezone: true }),
+  createdAt: createdAt(),
+});
+
+/** Fixed-window counters for rate limits (sign-in, sign-up, reset), keyed by purpose and subject. */
+export const rateLimits = pgTable("rate_limits", {
+  key: text("key").notNull(),
+  windowStart: timestamp("window_start", { withTimezone: true }).notNull(),
+  count: integer("count").notNull().default(0),
+}, (t) => [primaryKey({ columns: [t.key, t.windowStart] })]);
+
+// --- E-mail outbox: every message is written here first, then sent (with retries) ---
+
+export const outbox = pgTable("outbox", {
+  id: serial("id").primaryKey(),
+  toAddress: text("to_address").notNull(),
+  subject: text("subject").notNull(),
+  textBody: text("text_body").notNull(),
+  htmlBody: text("html_body"),
+  kind: text("kind").notNull(),
+  createdAt: createdAt(),
+  attempts: integer("attempts").notNull().default(0),
+  nextAttemptAt: timestamp("next_attempt_at", { withTimezone: true }).notNull().defaultNow(),
+  sentAt: timestamp("sent_at", { withTimezone: true }),
+  lastError: text("last_error"),
+}, (t) => [index("outbox_pending_idx").on(t.nextAttemptAt).where(sql`sent_at is null`)]);

@@ -12,6 +12,7 @@ export type WriteupCard = {
   hullFrom: number;
   hullTo: number;
   authorName: string;
+  authorCredit: string;
   hullNumber: number | null;
   systems: { slug: string; name: string }[];
 };
@@ -42,7 +43,8 @@ function cardQuery(db: Db) {
       publishedAt: s.writeups.publishedAt,
       hullFrom: s.writeups.hullFrom,
       hullTo: s.writeups.hullTo,
-      authorName: sql<string>`coalesce(${s.users.creditAs}, ${s.users.displayName})`,
+      authorName: s.users.displayName,
+      authorCredit: sql<string>`coalesce(${s.users.creditAs}, ${s.users.displayName})`,
       hullNumber: s.boats.hullNumber,
     })
     .from(s.writeups)

@@ -61,7 +61,7 @@ export default function WriteupPage({ loaderData }: Route.ComponentProps) {
           <h1 className="mt-3 text-step-4 font-semibold leading-tight">{writeup.title}</h1>
           <p className="mt-3 font-serif text-step-1 leading-relaxed text-ink-soft">{writeup.summary}</p>
           <p className="mt-3 text-step--1 text-ink-soft">
-            By {writeup.authorName}{writeup.publishedAt ? `, published ${formatDate(writeup.publishedAt)}` : ""}
+            By {writeup.authorCredit}{writeup.publishedAt ? `, published ${formatDate(writeup.publishedAt)}` : ""}
           </p>
         </header>
         {cautions.length > 0 && <div className="mt-8"><CautionList cautions={cautions} /></div>}

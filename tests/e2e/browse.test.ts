@@ -11,7 +11,10 @@ beforeAll(async () => {
   browser = await launchBrowser();
   page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
   page.on("pageerror", (e) => errors.push(e.message));
-  page.on("console", (m) => { if (m.type() === "error") errors.push(m.text()); });
+  // Document 404s are asked for below; the browser logs each as "Failed to load resource".
+  // Any other failed request (a script, a font, a stylesheet) is recorded from the response.
+  page.on("console", (m) => { if (m.type() === "error" && !m.text().startsWith("Failed to load resource")) errors.push(m.text()); });
+  page.on("response", (r) => { if (r.status() >= 400 && r.request().resourceType() !== "document") errors.push(`${r.status()} ${r.url()}`); });
 });
 afterAll(async () => browser?.close());
 
@@ -72,6 +75,7 @@ describe("a new owner browsing", () => {
     await page.goto(BASE_URL);
     await page.getByRole("link", { name: "Safety and the limits of this advice" }).click();
     await page.waitForURL("**/safety");
+    await page.getByRole("heading", { level: 1, name: "Safety and the limits of this advice" }).waitFor();
     const text = await page.locator("main").textContent();
     expect(text).toContain("33 CFR Part 183");
     expect(text).toContain("licensed or certified professional");

@@ -3,7 +3,7 @@ import fs from "node:fs";
 import path from "node:path";
 import { chromium, type Browser } from "playwright-core";
 
-export const BASE_URL = process.env.BASE_URL ?? "http://127.0.0.1:3000";
+export const BASE_URL = process.env.E2E_BASE_URL ?? "http://127.0.0.1:3000";
 export const ARTIFACTS_DIR = process.env.ARTIFACTS_DIR ?? path.resolve("test-artifacts");
 
 export async function launchBrowser(): Promise<Browser> {
