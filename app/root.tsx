@@ -3,32 +3,45 @@ import {
 } from "react-router";
 import type { Route } from "./+types/root";
 import "./app.css";
+import { useNonce } from "./components/nonce";
 import { SiteFooter, SiteHeader } from "./components/site-chrome";
 import { CLASS_NAME } from "./domain/hulls";
+import { can } from "./domain/permissions";
+import { originCheck } from "./services/origin-check.server";
+import { getUser } from "./services/session.server";
 
-export function loader({ request }: Route.LoaderArgs) {
+export const middleware: Route.MiddlewareFunction[] = [originCheck];
+
+export async function loader({ request }: Route.LoaderArgs) {
   const url = new URL(request.url);
-  return { className: CLASS_NAME, query: url.pathname === "/search" ? (url.searchParams.get("q") ?? "") : "" };
+  const user = await getUser(request);
+  return {
+    className: CLASS_NAME,
+    query: url.pathname === "/search" ? (url.searchParams.get("q") ?? "") : "",
+    user: user ? { displayName: user.displayName, isAdmin: user.roles.includes("admin"), canReview: can(user.roles, "writeup:review") } : null,
+  };
 }
 
 export function Layout({ children }: { children: React.ReactNode }) {
   const data = useRouteLoaderData<typeof loader>("root");
+  const nonce = useNonce();
   return (
     <html lang="en">
       <head>
         <meta charSet="utf-8" />
         <meta name="viewport" content="width=device-width, initial-scale=1" />
+        <link rel="icon" href="/favicon.svg" type="image/svg+xml" />
         <Meta />
         <Links />
       </head>
       <body>
-        <SiteHeader className={data?.className ?? CLASS_NAME} query={data?.query ?? ""} />
+        <SiteHeader className={data?.className ?? CLASS_NAME} query={data?.query ?? ""} user={data?.user ?? null} />
         <main id="main" className="mx-auto w-full max-w-5xl flex-1 px-4 py-8 sm:px-6">
           {children}
         </main>
         <SiteFooter />
-        <ScrollRestoration />
-        <Scripts />
+        <ScrollRestoration nonce={nonce} />
+        <Scripts nonce={nonce} />
       </body>
     </html>
   );
@@ -45,6 +58,9 @@ export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
     if (error.status === 404) {
       title = "Page not found";
       detail = "There is nothing at this address. The write-up may have been withdrawn, or the link mistyped.";
+    } else if (error.status === 403) {
+      title = "Not for your account";
+      detail = typeof error.data === "string" ? error.data : "Your account does not have the role this page needs.";
     } else if (error.status === 503) {
       title = "Back in a moment";
       detail = "Sistership cannot reach its database just now. Nothing you saved is lost; try again shortly.";

@@ -45,7 +45,7 @@ export async function findSessionUser(db: Db, sessionId: string): Promise<Sessio
       displayName: s.users.displayName,
       units: s.users.units,
       emailVerified: sql<boolean>`${s.users.emailVerifiedAt} is not null`,
-      roles: sql<Role[]>`coalesce(array(select ur.role::text from ${s.userRoles} ur where ur.user_id = ${s.users.id} order by ur.role), '{}')`,
+      roles: sql<Role[]>`coalesce(array(select ur.role::text from ${s.userRoles} ur where ur.user_id = "users"."id" order by ur.role), '{}')`,
       lastSeenAt: s.sessions.lastSeenAt,
     })
     .from(s.sessions)

@@ -99,7 +99,7 @@ export async function listUsers(db: Db, opts: { q?: string; role?: Role; page?: 
     filters.push(or(ilike(s.users.email, pattern), ilike(s.users.displayName, pattern)));
   }
   if (opts.role) {
-    filters.push(sql`exists (select 1 from ${s.userRoles} ur where ur.user_id = ${s.users.id} and ur.role = ${opts.role})`);
+    filters.push(sql`exists (select 1 from ${s.userRoles} ur where ur.user_id = "users"."id" and ur.role = ${opts.role})`);
   }
   const where = filters.length ? and(...filters) : undefined;
   const [{ total }] = await db.select({ total: count() }).from(s.users).where(where);
@@ -110,8 +110,8 @@ export async function listUsers(db: Db, opts: { q?: string; role?: Role; page?: 
       displayName: s.users.displayName,
       emailVerified: sql<boolean>`${s.users.emailVerifiedAt} is not null`,
       createdAt: s.users.createdAt,
-      roles: sql<Role[]>`coalesce(array(select ur.role::text from ${s.userRoles} ur where ur.user_id = ${s.users.id} order by ur.role), '{}')`,
-      hulls: sql<number[]>`coalesce(array(select b.hull_number from ${s.boatOwners} bo join ${s.boats} b on b.id = bo.boat_id where bo.user_id = ${s.users.id} order by 1), '{}')`,
+      roles: sql<Role[]>`coalesce(array(select ur.role::text from ${s.userRoles} ur where ur.user_id = "users"."id" order by ur.role), '{}')`,
+      hulls: sql<number[]>`coalesce(array(select b.hull_number from ${s.boatOwners} bo join ${s.boats} b on b.id = bo.boat_id where bo.user_id = "users"."id" order by 1), '{}')`,
     })
     .from(s.users)
     .where(where)
