@@ -267,41 +267,97 @@ export function fitItem(request: FitRequest): FitResult {
   };
 }
 
+/** `count` identical items end to end in one section: how they lie and the room left. */
+export interface RowPlacement {
+  count: number;
+  /** The horizontal axis of the section the row runs along. */
+  axis: "length" | "width";
+  placement: Placement;
+  /** Section minus the row along each axis of the section (along the row: minus all the
+   * items; across and up: minus one). The gaps between neighbours are part of it. */
+  leftoverMm: Box;
+}
+
+/**
+ * Places `count` identical items in a row in one section, with the clearance all round and
+ * between neighbours (n·d + (n + 1)·c along the row, d + 2c across and up). Among the allowed
+ * placements and both horizontal axes, the one with the most room on its tightest side wins,
+ * ties to the first listed: for one item this is the placement `fitItem` chooses. Null when
+ * the row does not fit.
+ */
+export function placeRow(
+  item: Box,
+  section: Box,
+  orientation: Orientation,
+  clearanceMm: number,
+  count = 1,
+): RowPlacement | null {
+  checkBox(item, "Item");
+  checkBox(section, "Section");
+  if (!Number.isInteger(count) || count < 1) throw new RangeError(`Count must be a whole number from 1, not ${count}.`);
+  const c = clearanceMm;
+  let best: RowPlacement | null = null;
+  for (const p of placementsFor(orientation)) {
+    for (const axis of ["length", "width"] as const) {
+      const left = leftover(item, section, p);
+      left[axis] = section[axis] - count * item[p[axis]];
+      const rowFits = left[axis] + ROUNDING_MM >= (count + 1) * c;
+      const restFits = AXES.every((a) => a === axis || left[a] + ROUNDING_MM >= 2 * c);
+      if (!rowFits || !restFits) continue;
+      if (!best || tightest(left) > tightest(best.leftoverMm) + ROUNDING_MM) {
+        best = { count, axis, placement: p, leftoverMm: left };
+      }
+    }
+  }
+  return best;
+}
+
 export interface RankedSpace<S extends Space> {
   space: S;
   /** Position of the space in the list given. */
   index: number;
   result: FitResult;
-  /** The snuggest fitting section. */
+  /** The snuggest section that takes the item (or the row of `count`). */
   section: number;
   /** Its volume minus the item's, mm³. */
   leftoverVolumeMm3: number;
+  /** How the item (or the row) lies in that section. */
+  row: RowPlacement;
 }
 
 /**
- * The spaces that can take the item, snuggest first (least leftover volume in the best
- * section). Spaces that fit the item but whose opening must be enlarged come after all those
- * that fit outright. Spaces that cannot take the item are left out. Equal spaces keep their
+ * The spaces that can take the item (or `count` of them in a row), snuggest first (least
+ * leftover volume in the best section). Spaces that fit the item but whose opening must be
+ * enlarged come after all those that fit outright. Spaces that cannot take the item are left out. Equal spaces keep their
  * order.
  */
 export function rankSpaces<S extends Space>(
   item: Box,
   spaces: readonly S[],
-  options: { orientation?: Orientation; clearanceMm?: number } = {},
+  options: { orientation?: Orientation; clearanceMm?: number; count?: number } = {},
 ): RankedSpace<S>[] {
   const orientation = options.orientation ?? "any";
   const clearanceMm = options.clearanceMm ?? 0;
+  const count = options.count ?? 1;
   const ranked: RankedSpace<S>[] = [];
   spaces.forEach((space, index) => {
     const result = fitItem({ item, orientation, clearanceMm, space });
     if (result.snuggestSection === null) return;
-    const best = result.sections[result.snuggestSection];
+    // With count 1, every fitting section takes a row of one; with more, only some may.
+    let best: { fit: SectionFit; row: RowPlacement } | null = null;
+    for (const fit of result.sections) {
+      if (!fit.fits || (best && fit.leftoverVolumeMm3 >= best.fit.leftoverVolumeMm3)) continue;
+      const row = placeRow(item, space.sections[fit.section], orientation, clearanceMm, count);
+      if (row) best = { fit, row };
+    }
+    if (!best) return;
     ranked.push({
       space,
       index,
       result,
-      section: best.section,
-      leftoverVolumeMm3: best.leftoverVolumeMm3,
+      section: best.fit.section,
+      leftoverVolumeMm3: best.fit.leftoverVolumeMm3,
+      row: best.row,
     });
   });
   const needsWork = (r: RankedSpace<S>) => (r.result.verdict === "fits" ? 0 : 1);
