@@ -182,8 +182,13 @@ export interface BoatParticulars {
   lcfAftOfBowIn: number;
   /** Forward end of the waterline, inches aft of the bow (overhang); 0 when not given. */
   waterlineForwardEndAftOfBowIn?: number;
-  /** Longitudinal metacentric height, ft; without it no trim is computed. */
+  /** Longitudinal metacentric height, ft; without it (or MCT1) no trim is computed. */
   gmLongitudinalFt?: number;
+  /**
+   * Moment to change trim one inch, ft·lb per inch, when it is known directly rather than
+   * through GM_L; used as it stands, for any displacement. GM_L wins when both are given.
+   */
+  mct1FtLbPerIn?: number;
   /** Maximum beam, ft; when given, moves are checked against the half-beam. */
   beamFt?: number;
 }
@@ -258,8 +263,11 @@ export function ledgerCondition(
   const lMoment = longitudinalMomentFtLb(items, particulars.lcfAftOfBowIn);
 
   let trim: TrimResult | null = null;
-  if (particulars.gmLongitudinalFt !== undefined) {
-    const m = mct1(displacementLb, particulars.gmLongitudinalFt, particulars.lwlFt);
+  if (particulars.gmLongitudinalFt !== undefined || particulars.mct1FtLbPerIn !== undefined) {
+    const m =
+      particulars.gmLongitudinalFt !== undefined
+        ? mct1(displacementLb, particulars.gmLongitudinalFt, particulars.lwlFt)
+        : (particulars.mct1FtLbPerIn as number);
     const changeIn = trimChangeIn(lMoment, m);
     const lcfFromForwardEndFt = (particulars.lcfAftOfBowIn - (particulars.waterlineForwardEndAftOfBowIn ?? 0)) / 12;
     trim = {

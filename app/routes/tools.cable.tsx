@@ -1,0 +1,131 @@
+import { Form, Link } from "react-router";
+import type { Route } from "./+types/tools.cable";
+import { CableRunResult } from "~/components/cable-run-result";
+import { buttonClass, FieldError, inputClass } from "~/components/ui/field";
+import { UnitToggle } from "~/components/unit-toggle";
+import { ALLOWED_DROPS, cableToolSchema, firstErrors, queryObject, SYSTEM_VOLTAGES, withRunUnit } from "~/domain/boat-forms";
+import type { CableRunStored } from "~/domain/calculations";
+import { DROP_CATEGORIES, INSULATION_RATINGS_C } from "~/domain/conductors";
+import { MM_PER_FOOT, type LengthUnit } from "~/domain/units";
+import { requireUser } from "~/services/session.server";
+import { readerUnit } from "./reader-unit.server";
+
+const FIELDS = ["current", "length", "voltage", "drop", "insulation", "engineSpace", "label"] as const;
+
+/** The same query in the other unit: a bare run length keeps its meaning by taking its unit along. */
+function toggleQuery(form: Record<string, string>, unit: LengthUnit, to: LengthUnit): string {
+  const q = new URLSearchParams({ ...form, unit: to });
+  if (form.length) q.set("length", withRunUnit(form.length, unit));
+  return q.toString();
+}
+
+export function meta() {
+  return [{ title: "Cable for a DC run · Sistership" }];
+}
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const user = await requireUser(request);
+  const unit = await readerUnit(request, user);
+  const q = new URL(request.url).searchParams;
+  const values = queryObject(q, FIELDS);
+  const form: Record<string, string> = { voltage: "12", drop: "3", insulation: "105", ...values };
+  let errors: Record<string, string> = {};
+  let input: CableRunStored | null = null;
+  if (values.current !== undefined || values.length !== undefined) {
+    const r = cableToolSchema(unit).safeParse(form);
+    if (r.success) {
+      input = {
+        currentA: r.data.currentA,
+        oneWayLengthMm: r.data.oneWayLengthFt * MM_PER_FOOT,
+        systemVoltage: r.data.systemVoltage,
+        allowedDropPct: r.data.allowedDropPct,
+        insulationRatingC: r.data.insulationRatingC,
+        inEngineSpace: r.data.inEngineSpace,
+        label: (values.label ?? "").slice(0, 120),
+      };
+    } else errors = firstErrors(r.error);
+  }
+  return { unit, form, errors, input };
+}
+
+export default function CableTool({ loaderData }: Route.ComponentProps) {
+  const { unit, form, errors, input } = loaderData;
+  const field = (name: "current" | "length" | "label", label: string, hint: string, inputMode?: "decimal") => (
+    <div>
+      <label htmlFor={`cable-${name}`} className="block font-medium">{label}</label>
+      <input
+        id={`cable-${name}`}
+        name={name}
+        defaultValue={form[name as keyof typeof form] ?? ""}
+        inputMode={inputMode}
+        autoComplete="off"
+        aria-invalid={errors[name] ? true : undefined}
+        aria-describedby={`cable-${name}-hint${errors[name] ? ` cable-${name}-error` : ""}`}
+        className={`mt-1 ${inputClass}`}
+      />
+      <p id={`cable-${name}-hint`} className="mt-0.5 text-step--1 text-ink-soft">{hint}</p>
+      <FieldError id={`cable-${name}-error`} errors={errors[name] ? [errors[name]] : undefined} />
+    </div>
+  );
+  const select = (name: "voltage" | "drop" | "insulation", label: string, options: { value: string; label: string }[]) => (
+    <div>
+      <label htmlFor={`cable-${name}`} className="block font-medium">{label}</label>
+      <select
+        id={`cable-${name}`}
+        name={name}
+        defaultValue={form[name]}
+        aria-invalid={errors[name] ? true : undefined}
+        className={`mt-1 ${inputClass}`}
+      >
+        {options.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+      </select>
+      <FieldError id={`cable-${name}-error`} errors={errors[name] ? [errors[name]] : undefined} />
+    </div>
+  );
+  return (
+    <div className="space-y-8">
+      <header className="max-w-3xl">
+        <h1 className="text-step-4 font-semibold leading-tight">Cable for a DC run</h1>
+        <p className="mt-3 font-serif text-step-1 leading-relaxed text-ink-soft">
+          The conductor size a 12 or 24 V run needs, by voltage drop and by the current it carries, and the largest fuse or
+          breaker it may have. For planning: the installation follows ABYC E-11, and a qualified marine electrician has the last word.
+        </p>
+      </header>
+      <Form method="get" action="/tools/cable" className="space-y-5 rounded-lg bg-cloth-100 p-4 sm:p-6" aria-label="The cable run">
+        <input type="hidden" name="unit" value={unit} />
+        <div className="flex justify-end">
+          <UnitToggle unit={unit} search={(to) => toggleQuery(form, unit, to)} />
+        </div>
+        <div className="grid gap-4 sm:grid-cols-2">
+          {field("current", "Current", "What the load draws at most, in amps (e.g. 30)", "decimal")}
+          {field("length", "Run length, one way", `From the source to the load, in ${unit === "mm" ? "metres" : "feet"} unless you type a unit (${unit === "mm" ? "3.4 or 3350 mm" : "11 or 11 ft 6 in"}); the drop is worked on the round trip`)}
+        </div>
+        <div className="grid gap-4 sm:grid-cols-3">
+          {select("voltage", "System voltage", SYSTEM_VOLTAGES.map((v) => ({ value: String(v), label: `${v} V` })))}
+          {select("drop", "Voltage drop allowed", ALLOWED_DROPS.map((d) => ({ value: String(d), label: `${d} %: ${DROP_CATEGORIES[d].toLowerCase()}` })))}
+          {select("insulation", "Insulation rating", INSULATION_RATINGS_C.map((c) => ({ value: String(c), label: `${c} °C` })))}
+        </div>
+        <label className="flex min-h-11 items-center gap-2 font-medium">
+          <input type="checkbox" name="engineSpace" value="true" defaultChecked={form.engineSpace === "true" || form.engineSpace === "on"} className="size-5 accent-deep-700" />
+          The run passes through an engine space
+        </label>
+        {errors.engineSpace && <FieldError id="cable-engineSpace-error" errors={[errors.engineSpace]} />}
+        {field("label", "What it feeds (optional)", "Shown as the title of the answer, e.g. House battery to the switch")}
+        <button type="submit" className={buttonClass}>Size the cable</button>
+      </Form>
+      <section aria-labelledby="cable-answer" className="space-y-3">
+        <h2 id="cable-answer" className="text-step-2 font-semibold">The answer</h2>
+        {input ? (
+          <CableRunResult input={input} unit={unit} />
+        ) : (
+          <p className="text-ink-soft">
+            {Object.keys(errors).length ? "Correct the fields marked above." : "Enter the current and the run length."}
+          </p>
+        )}
+        <p className="text-step--1 text-ink-soft">
+          Also as JSON: <code>GET /api/cable</code> (see the README). For where a battery can go, see <Link to="/fit">Will it fit?</Link>
+        </p>
+      </section>
+    </div>
+  );
+}
