@@ -8,7 +8,15 @@ import { z } from "zod";
 import type { Db } from "../app/db/client.server";
 import * as s from "../app/db/schema";
 import { parseAppliesTo, type HullRange } from "../app/domain/hulls";
+import { batteryGroupItems } from "../app/domain/items";
+import { upsertItem } from "../app/models/items.server";
+import { refreshSpaceConsensus } from "../app/models/spaces.server";
 import { renderMarkdown } from "../app/domain/markdown";
+import { hashPassword } from "../app/services/password.server";
+import { seedLedger } from "./seed-ledger";
+
+/** Every demo member signs in with this password (demo content only; see README). */
+export const DEMO_PASSWORD = "brantwater-demo";
 
 const MM_PER_IN = 25.4; // exact by definition (NIST SP 811)
 const KG_PER_LB = 0.45359237; // exact by definition (NIST SP 811)
@@ -83,6 +91,16 @@ const spaceSchema = z.object({
     .default([]),
 });
 
+const itemSchema = z.object({
+  slug: z.string().regex(/^[a-z0-9-]+$/),
+  name: z.string().min(1),
+  by: z.string().email(),
+  lengthIn: inches, widthIn: inches, heightIn: inches,
+  weightLb: z.number().positive().optional(),
+  orientation: z.enum(["any", "upright"]),
+  note: z.string().default(""),
+});
+
 function readYaml(file: string): unknown {
   return YAML.parse(fs.readFileSync(file, "utf8"));
 }
@@ -102,15 +120,17 @@ export function splitFrontMatter(source: string): { data: unknown; body: string 
   return { data: YAML.parse(m[1]), body: m[2] };
 }
 
-export type SeedCounts = { members: number; boats: number; writeups: number; spaces: number; measurements: number };
+export type SeedCounts = { members: number; boats: number; writeups: number; spaces: number; measurements: number; items: number };
 
 export async function seedDemo(db: Db, dir: string): Promise<SeedCounts> {
   const taxonomy = parseOrExplain(taxonomySchema, readYaml(path.join(dir, "taxonomy.yaml")), "taxonomy.yaml");
   const members = parseOrExplain(z.array(memberSchema), readYaml(path.join(dir, "members.yaml")), "members.yaml");
   const spaceList = parseOrExplain(z.array(spaceSchema), readYaml(path.join(dir, "spaces.yaml")), "spaces.yaml");
+  const itemList = parseOrExplain(z.array(itemSchema), readYaml(path.join(dir, "items.yaml")), "items.yaml");
   const writeupDir = path.join(dir, "writeups");
   const writeupFiles = fs.readdirSync(writeupDir).filter((f) => f.endsWith(".md")).sort();
 
+  const demoHash = await hashPassword(DEMO_PASSWORD);
   return db.transaction(async (tx) => {
     for (const [i, sys] of taxonomy.systems.entries()) {
       await tx.insert(s.systems).values({ ...sys, sortOrder: i })
@@ -125,7 +145,7 @@ export async function seedDemo(db: Db, dir: string): Promise<SeedCounts> {
     const boatIds = new Map<number, number>();
     for (const m of members) {
       const email = m.email.toLowerCase();
-      const values = { email, displayName: m.displayName, creditAs: m.credit ?? null, units: m.units, digestOptIn: m.digest, emailVerifiedAt: new Date("2024-01-01T00:00:00Z") };
+      const values = { email, displayName: m.displayName, creditAs: m.credit ?? null, units: m.units, digestOptIn: m.digest, emailVerifiedAt: new Date("2024-01-01T00:00:00Z"), passwordHash: demoHash };
       const [row] = await tx.insert(s.users).values(values)
         .onConflictDoUpdate({ target: s.users.email, set: { displayName: values.displayName, creditAs: values.creditAs, units: values.units, digestOptIn: values.digestOptIn } })
         .returning({ id: s.users.id });
@@ -180,6 +200,21 @@ export async function seedDemo(db: Db, dir: string): Promise<SeedCounts> {
         })));
         measurementCount += sp.measurements.length;
       }
+      // The fit uses the consensus of the measurements of the main section.
+      await refreshSpaceConsensus(tx, row.id);
+    }
+
+    // The catalogue: the BCI battery groups, then the members' items.
+    for (const g of batteryGroupItems()) {
+      await upsertItem(tx, { ...g, weightKg: null, addedBy: null });
+    }
+    for (const it of itemList) {
+      await upsertItem(tx, {
+        slug: it.slug, name: it.name, kind: "member-item",
+        box: { length: it.lengthIn * MM_PER_IN, width: it.widthIn * MM_PER_IN, height: it.heightIn * MM_PER_IN },
+        weightKg: it.weightLb === undefined ? null : it.weightLb * KG_PER_LB,
+        orientation: it.orientation, note: it.note, addedBy: userId(it.by, `items.yaml (${it.slug})`),
+      });
     }
 
     for (const file of writeupFiles) {
@@ -211,6 +246,18 @@ export async function seedDemo(db: Db, dir: string): Promise<SeedCounts> {
           weightKg: p.weightLb === undefined ? null : p.weightLb * KG_PER_LB, note: p.note,
         })));
       }
+      // The seeded text is revision 1 of each write-up.
+      const revision = {
+        writeupId: row.id, number: 1, status, authorId: values.authorId, title: w.title, summary: w.summary,
+        bodyMarkdown: body, systems: w.systems, zones: w.zones, hullFrom: w.appliesTo.from, hullTo: w.appliesTo.to,
+        boatId: values.boatId, difficulty: values.difficulty, hoursSpent: values.hoursSpent, costUsd: values.costUsd,
+        parts: w.parts.map((p) => ({ name: p.name, quantity: p.qty, weightKg: p.weightLb === undefined ? null : p.weightLb * KG_PER_LB, note: p.note })),
+        createdAt: values.createdAt, updatedAt: values.updatedAt,
+        submittedAt: status === "draft" ? null : values.createdAt,
+        decidedAt: status === "published" ? values.publishedAt : null,
+      };
+      await tx.insert(s.writeupRevisions).values(revision)
+        .onConflictDoUpdate({ target: [s.writeupRevisions.writeupId, s.writeupRevisions.number], set: revision });
       await tx.delete(s.writeupSpaces).where(eq(s.writeupSpaces.writeupId, row.id));
       for (const spaceSlug of w.spaces) {
         const spaceId = spaceIds.get(spaceSlug);
@@ -219,9 +266,12 @@ export async function seedDemo(db: Db, dir: string): Promise<SeedCounts> {
       }
     }
 
+    // Heel and trim: class particulars, standard items, demo ledgers, write-up calculations.
+    await seedLedger(tx, dir);
+
     return {
       members: members.length, boats: boatIds.size, writeups: writeupFiles.length,
-      spaces: spaceList.length, measurements: measurementCount,
+      spaces: spaceList.length, measurements: measurementCount, items: batteryGroupItems().length + itemList.length,
     };
   });
 }

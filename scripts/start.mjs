@@ -4,7 +4,7 @@ import fs from "node:fs";
 import path from "node:path";
 import {
   bin, ensureDependencies, ensurePostgres, fail, isLoopbackHost, log, portIsFree, root, runTs, SetupError,
-  spawnChild, startCluster, startMailStandin,
+  spawnChild, startCluster, startMailStandin, photoStandinEnv, startPhotoStandin,
 } from "./lib/setup.mjs";
 
 const dev = process.argv.includes("--dev");
@@ -48,6 +48,42 @@ async function startMail() {
   return { standin, env: { SMTP_HOST: "127.0.0.1", SMTP_PORT: String(port), MAIL_STANDIN_DIR: dir } };
 }
 
+/**
+ * Photo storage. With S3_ENDPOINT naming another machine, the app stores photos in that S3 service.
+ * Otherwise the S3 stand-in runs on the port of S3_ENDPOINT (default 127.0.0.1:4569) and keeps the
+ * objects in .data/s3 (S3_STANDIN_DIR). Returns the stand-in (or null) and the variables the app needs.
+ */
+async function startPhotoStore() {
+  const endpoint = process.env.S3_ENDPOINT;
+  let url = null;
+  if (endpoint) {
+    try {
+      url = new URL(endpoint);
+    } catch {
+      throw new SetupError(`S3_ENDPOINT=${endpoint} is not a URL such as http://127.0.0.1:4569.`);
+    }
+  }
+  const bucket = process.env.S3_BUCKET ?? "sistership-photos";
+  if (url && !isLoopbackHost(url.hostname.replace(/^\[(.*)\]$/, "$1"))) {
+    log(`storing photos in the S3 service at ${url.origin}, bucket ${bucket} (no local stand-in)`);
+    return { standin: null, env: {} };
+  }
+  if (url && url.protocol !== "http:") {
+    throw new SetupError(`S3_ENDPOINT=${endpoint}: the local photo store stand-in speaks plain http, e.g. http://127.0.0.1:4569.`);
+  }
+  const port = Number(url ? url.port || 80 : 4569);
+  if (!(await portIsFree(port))) {
+    throw new SetupError(
+      `Port ${port} on 127.0.0.1 is busy, so the photo store stand-in (a local S3 server that keeps the ` +
+        "app's photos) cannot listen there: another program (perhaps an earlier npm start) is using it. " +
+        `Stop it, or choose another port: S3_ENDPOINT=http://127.0.0.1:${port + 1} npm start`,
+    );
+  }
+  const dir = path.resolve(process.env.S3_STANDIN_DIR ?? path.join(root, ".data", "s3"));
+  const standin = await startPhotoStandin({ port, dir, bucket });
+  return { standin, env: { ...photoStandinEnv(port, bucket), S3_REGION: process.env.S3_REGION ?? "us-east-1" } };
+}
+
 async function main() {
   ensureDependencies();
   const host = process.env.HOST ?? "127.0.0.1";
@@ -55,6 +91,7 @@ async function main() {
 
   let cluster = null;
   let standin = null;
+  let photoStandin = null;
   let stopping = false;
   let databaseUrl = process.env.DATABASE_URL;
   if (databaseUrl) {
@@ -73,6 +110,7 @@ async function main() {
   const stopAll = () => {
     stopping = true;
     standin?.child.kill("SIGTERM");
+    photoStandin?.child.kill("SIGTERM");
     cluster?.stop();
   };
   process.on("exit", stopAll);
@@ -94,6 +132,12 @@ async function main() {
     if (!stopping) log(`the mail stand-in stopped (exit code ${code}); outgoing mail waits in the outbox until it runs again`);
   });
   Object.assign(env, mail.env);
+  const photos = await startPhotoStore();
+  photoStandin = photos.standin;
+  photoStandin?.done.then((code) => {
+    if (!stopping) log(`the photo store stand-in stopped (exit code ${code}); photos cannot be uploaded or shown until it runs again`);
+  });
+  Object.assign(env, photos.env);
 
   let server;
   if (dev) {
@@ -107,7 +151,7 @@ async function main() {
     server = spawnChild(process.execPath, ["scripts/serve.mjs"], {
       ...env, NODE_ENV: "production", HOST: host, PORT: String(port),
     });
-    log(`serving Sistership on http://${host}:${port} (Ctrl-C stops the app, its PostgreSQL and its mail stand-in)`);
+    log(`serving Sistership on http://${host}:${port} (Ctrl-C stops the app, its PostgreSQL and its mail and photo store stand-ins)`);
   }
   for (const signal of ["SIGINT", "SIGTERM"]) {
     process.on(signal, () => {
@@ -120,4 +164,4 @@ async function main() {
   process.exit(code);
 }
 
-main().catch(fail);
+main().then(() => process.exit(0), fail);

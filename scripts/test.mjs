@@ -5,7 +5,7 @@ import os from "node:os";
 import path from "node:path";
 import {
   bin, ensureChromium, ensureDependencies, ensurePostgres, fail, freePort, log, root, runTs,
-  SetupError, spawnChild, startCluster, startMailStandin,
+  SetupError, spawnChild, startCluster, startMailStandin, photoStandinEnv, startPhotoStandin,
 } from "./lib/setup.mjs";
 
 async function step(name, cmd, args, env) {
@@ -32,6 +32,12 @@ async function waitForHealth(url, server, seconds = 30) {
   throw new SetupError(`The app server did not answer ${url} within ${seconds} s.`);
 }
 
+// `npm test -- --only=e2e` (or unit, integration, typecheck; comma-separated) runs only those stages.
+const only = process.argv.find((a) => a.startsWith("--only="))?.slice("--only=".length).split(",");
+const wanted = (stage) => !only || only.includes(stage);
+// Other arguments are file filters for vitest: `npm test -- --only=e2e writeup-journey`.
+const filters = process.argv.slice(2).filter((a) => !a.startsWith("--"));
+
 async function main() {
   const started = Date.now();
   ensureDependencies();
@@ -41,9 +47,11 @@ async function main() {
   const cluster = await startCluster({ bin: pgBin, dir, port: await freePort() });
   let server = null;
   let standin = null;
+  let photoStandin = null;
   const cleanup = () => {
     server?.child.kill("SIGTERM");
     standin?.child.kill("SIGTERM");
+    photoStandin?.child.kill("SIGTERM");
     cluster.stop();
     if (!process.env.SISTERSHIP_KEEP_TEST_DB) fs.rmSync(dir, { recursive: true, force: true });
   };
@@ -63,23 +71,33 @@ async function main() {
   standin = await startMailStandin({ port: smtpPort, dir: mailDir });
   const mailEnv = { SMTP_HOST: "127.0.0.1", SMTP_PORT: String(smtpPort), MAIL_STANDIN_DIR: mailDir };
 
+  // The S3 stand-in of this run, likewise: on a free port, its objects in a folder of its own; the
+  // app under test and every test layer store photos there (never in a service named in S3_ENDPOINT).
+  const s3Port = await freePort();
+  photoStandin = await startPhotoStandin({ port: s3Port, dir: path.join(dir, "s3"), bucket: "sistership-test-photos" });
+  const photoEnv = photoStandinEnv(s3Port, "sistership-test-photos");
+
   const env = {
     ...process.env,
     ...mailEnv,
+    ...photoEnv,
     NODE_ENV: "test",
     TEST_PG_ADMIN_URL: cluster.url("postgres"),
     DATABASE_URL: cluster.url("template_seeded"),
   };
-  await step("typecheck", bin("react-router"), ["typegen"], env);
-  await step("typecheck (tsc)", bin("tsc"), [], env);
-  await step("unit tests", bin("vitest"), ["run", "--project", "unit"], env);
-  await step("integration tests", bin("vitest"), ["run", "--project", "integration"], env);
+  if (wanted("typecheck")) {
+    await step("typecheck", bin("react-router"), ["typegen"], env);
+    await step("typecheck (tsc)", bin("tsc"), [], env);
+  }
+  if (wanted("unit")) await step("unit tests", bin("vitest"), ["run", "--project", "unit", ...filters], env);
+  if (wanted("integration")) await step("integration tests", bin("vitest"), ["run", "--project", "integration", ...filters], env);
+  if (!wanted("e2e")) return;
 
   // Browser tests: the production build against a seeded database of its own.
   const chromium = ensureChromium();
   cluster.createDatabase("e2e", "template_seeded");
   const e2eEnv = {
-    ...process.env, ...mailEnv, NODE_ENV: "production", DATABASE_URL: cluster.url("e2e"),
+    ...process.env, ...mailEnv, ...photoEnv, NODE_ENV: "production", DATABASE_URL: cluster.url("e2e"),
     SESSION_SECRET: crypto.randomBytes(32).toString("hex"),
   };
   await step("build", bin("react-router"), ["build"], e2eEnv);
@@ -88,11 +106,11 @@ async function main() {
   // APP_URL: the links the app mails (verification, password reset) must lead back to this server.
   server = spawnChild(process.execPath, ["scripts/serve.mjs"], { ...e2eEnv, HOST: "127.0.0.1", PORT: String(port), APP_URL: baseUrl });
   await waitForHealth(`${baseUrl}/api/health`, server);
-  await step("browser tests", bin("vitest"), ["run", "--project", "e2e"], {
+  await step("browser tests", bin("vitest"), ["run", "--project", "e2e", ...filters], {
     ...env, E2E_BASE_URL: baseUrl, CHROMIUM_PATH: chromium, E2E_DATABASE_URL: cluster.url("e2e"),
     ARTIFACTS_DIR: path.join(root, "test-artifacts"),
   });
   log(`all tests passed in ${((Date.now() - started) / 1000).toFixed(0)} s`);
 }
 
-main().catch(fail);
+main().then(() => process.exit(0), fail);

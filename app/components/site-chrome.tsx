@@ -1,6 +1,28 @@
 import { Form, Link } from "react-router";
+import { SearchBox } from "./search-box";
 
-export function SiteHeader({ className, query }: { className: string; query: string }) {
+export type HeaderUser = { displayName: string; isAdmin: boolean; canReview: boolean } | null;
+
+function AccountLinks({ user }: { user: HeaderUser }) {
+  if (!user) {
+    return (
+      <Link to="/sign-in" className="font-medium text-cloth-50 underline-offset-4 hover:underline">Sign in</Link>
+    );
+  }
+  return (
+    <div className="flex items-center gap-4 text-step--1">
+      <Link to="/my/writeups" className="text-cloth-100 hover:underline">Your write-ups</Link>
+      {user.canReview && <Link to="/review" className="text-cloth-100 hover:underline">Review</Link>}
+      {user.isAdmin && <Link to="/admin/users" className="text-cloth-100 hover:underline">Members</Link>}
+      <Link to="/account" className="font-medium text-cloth-50 hover:underline">{user.displayName}</Link>
+      <Form method="post" action="/sign-out">
+        <button type="submit" className="text-cloth-100 underline-offset-4 hover:underline">Sign out</button>
+      </Form>
+    </div>
+  );
+}
+
+export function SiteHeader({ className, query, user }: { className: string; query: string; user: HeaderUser }) {
   return (
     <header className="no-print bg-deep-800 text-cloth-50">
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:m-2 focus:bg-cloth-50 focus:p-2 focus:text-deep-900">
@@ -11,20 +33,31 @@ export function SiteHeader({ className, query }: { className: string; query: str
           <span className="font-serif text-step-2 font-semibold tracking-tight">Sistership</span>
           <span className="text-step--1 text-deep-200 group-hover:text-cloth-100">{className} owners' knowledge base</span>
         </Link>
+        <nav aria-label="Spaces and the fit check" className="flex gap-4 text-step--1 font-medium">
+          <Link to="/spaces" className="text-cloth-50 underline-offset-4 hover:underline">Spaces</Link>
+          <Link to="/fit" className="text-cloth-50 underline-offset-4 hover:underline">Will it fit?</Link>
+        </nav>
+        {user && (
+          <nav aria-label="Calculators" className="flex gap-4 text-step--1 font-medium">
+            <Link to="/tools/heel" className="text-cloth-50 underline-offset-4 hover:underline">Heel</Link>
+            <Link to="/tools/cable" className="text-cloth-50 underline-offset-4 hover:underline">Cable sizes</Link>
+          </nav>
+        )}
         <Form method="get" action="/search" role="search" className="ml-auto flex w-full max-w-sm gap-2 sm:w-auto">
-          <label htmlFor="site-search" className="sr-only">Search write-ups</label>
-          <input
+          <SearchBox
+            key={query}
             id="site-search"
-            name="q"
-            type="search"
+            label="Search write-ups, spaces and items"
             defaultValue={query}
             placeholder="battery box under the settee"
-            className="min-w-0 flex-1 rounded-md border border-deep-500 bg-deep-900/40 px-3 py-2 text-cloth-50 placeholder:text-deep-200"
+            inputClassName="w-full rounded-md border border-deep-500 bg-deep-900/40 px-3 py-2 text-cloth-50 placeholder:text-deep-200"
+            listClassName="sm:left-auto sm:w-[28rem]"
           />
           <button type="submit" className="rounded-md bg-varnish-500 px-3 py-2 font-medium text-deep-900 hover:bg-varnish-400">
             Search
           </button>
         </Form>
+        <AccountLinks user={user} />
       </div>
     </header>
   );

@@ -134,13 +134,3 @@ export async function getPublishedWriteup(db: Db, slug: string) {
     spaces: spaces.map((sp) => ({ ...sp, sections: sections.filter((x) => x.spaceId === sp.id) })),
   };
 }
-
-/** Simple full-text search over published write-ups (title A, summary B, body C). */
-export async function searchPublished(db: Db, query: string, limit = 20): Promise<WriteupCard[]> {
-  const q = sql`websearch_to_tsquery('english', ${query})`;
-  const rows = await cardQuery(db)
-    .where(and(published, sql`${s.writeups.search} @@ ${q}`))
-    .orderBy(sql`ts_rank_cd(${s.writeups.search}, ${q}) desc`, desc(s.writeups.publishedAt))
-    .limit(limit);
-  return attachSystems(db, rows);
-}

@@ -1,38 +1,440 @@
+import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/search";
-import { WriteupCard } from "~/components/writeup-card";
+import { SearchBox } from "~/components/search-box";
+import { SnippetText } from "~/components/snippet";
+import { buttonClass, inputClass, quietButtonClass } from "~/components/ui/field";
+import { formatDate, SystemChips } from "~/components/writeup-card";
 import { db } from "~/db/index.server";
-import { searchPublished } from "~/models/writeups.server";
+import { describeBox } from "~/domain/fit-search";
+import { CLASS_NAME, describeHullRange } from "~/domain/hulls";
+import {
+  hasFilters, KIND_LABEL, pageCount, PAGE_SIZE, parseSearchParams, SEARCH_KINDS, searchHref, type SearchKind,
+} from "~/domain/search";
+import type { LengthUnit } from "~/domain/units";
+import { hullChoices, search, searchFacets, searchTaxonomy, type Facets, type SearchResult } from "~/models/search.server";
+import { hullsOfUser } from "~/models/spaces.server";
+import { getUser } from "~/services/session.server";
+import { readerUnit } from "./reader-unit.server";
+
+type Problem = { parameter: string; message: string };
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const q = (new URL(request.url).searchParams.get("q") ?? "").trim().slice(0, 200);
-  return { q, results: q ? await searchPublished(db, q) : [] };
+  const url = new URL(request.url);
+  const user = await getUser(request);
+  const unit = await readerUnit(request, user);
+  const params = url.searchParams.toString();
+  const parsed = parseSearchParams(url.searchParams, "page");
+  const base = {
+    params, unit, q: url.searchParams.get("q") ?? "",
+    fitText: url.searchParams.get("fit") ?? "",
+    fitUnit: (url.searchParams.get("unit") === "mm" ? "mm" : url.searchParams.get("unit") === "in" ? "in" : unit) as LengthUnit,
+    fitUpright: url.searchParams.get("upright") === "true",
+  };
+  if (!parsed.ok) {
+    return data({ ...base, state: "problem" as const, problem: { parameter: parsed.parameter, message: parsed.message } as Problem }, { status: 400 });
+  }
+  const req = parsed.request;
+  // Sizes typed among the words go to the form's "must fit" field, so that searching again keeps them.
+  const fit = req.filters.fit;
+  if (fit && !url.searchParams.get("fit")) {
+    base.fitText = fit.text;
+    base.fitUnit = fit.unit;
+    base.fitUpright = fit.orientation === "upright";
+  }
+  const taxonomy = await searchTaxonomy(db);
+  const unknown =
+    req.filters.system && !taxonomy.systems.some((x) => x.slug === req.filters.system) ? { parameter: "system", message: "There is no such system." }
+    : req.filters.zone && !taxonomy.zones.some((x) => x.slug === req.filters.zone) ? { parameter: "zone", message: "There is no such zone." }
+    : null;
+  if (unknown) return data({ ...base, state: "problem" as const, problem: unknown }, { status: 400 });
+  if (!req.q && !hasFilters(req.filters)) return { ...base, state: "start" as const };
+
+  const ownHulls = user ? await hullsOfUser(db, user.id) : [];
+  const answer = await search(db, req);
+  const facets = await searchFacets(db, { ...req, q: answer.words }, hullChoices(ownHulls, req.filters.hull));
+  const f = req.filters;
+  return {
+    ...base,
+    state: "results" as const,
+    words: req.q,
+    page: parsed.page,
+    filtered: hasFilters(req.filters),
+    answer,
+    facets,
+    active: {
+      system: f.system ? (taxonomy.systems.find((x) => x.slug === f.system)?.name ?? f.system) : null,
+      zone: f.zone ? (taxonomy.zones.find((x) => x.slug === f.zone)?.name ?? f.zone) : null,
+      hull: f.hull ? { text: f.hull.text, label: describeHullRange(f.hull) } : null,
+      measured: f.measured,
+      year: f.year,
+      kind: f.kind,
+      fit: f.fit ? { text: describeBox(f.fit.box, f.fit.unit), upright: f.fit.orientation === "upright", fromWords: !url.searchParams.get("fit") } : null,
+    },
+  };
 }
 
 export function meta({ loaderData }: Route.MetaArgs) {
-  return [{ title: loaderData?.q ? `“${loaderData.q}” · Sistership search` : "Search · Sistership" }];
+  const q = loaderData?.q?.trim();
+  return [
+    { title: q ? `“${q}” · Sistership search` : "Search · Sistership" },
+    { name: "description", content: `Search the ${CLASS_NAME} owners' write-ups, measured spaces and catalogue items.` },
+  ];
 }
 
+// ---------------------------------------------------------------------------------------------
+
 export default function SearchPage({ loaderData }: Route.ComponentProps) {
-  const { q, results } = loaderData;
+  const d = loaderData;
+  const params = new URLSearchParams(d.params);
   return (
     <div>
-      <h1 className="text-step-3 font-semibold">{q ? `Write-ups matching “${q}”` : "Search the write-ups"}</h1>
-      {q && results.length > 0 && (
-        <p className="mt-2 text-ink-soft">{results.length} {results.length === 1 ? "write-up" : "write-ups"}, best matches first.</p>
-      )}
-      {q && results.length === 0 && (
-        <div className="mt-6 max-w-2xl rounded-lg bg-cloth-100 p-5">
-          <p>No published write-up matches those words.</p>
-          <p className="mt-2 text-step--1 text-ink-soft">
-            Try fewer or plainer words (“battery settee”), put an exact phrase in quotes (“"cockpit locker"”),
-            or leave a word out with a minus sign (battery -outboard).
+      <h1 className="text-step-3 font-semibold leading-tight">
+        {d.state !== "results"
+          ? "Search the class's knowledge"
+          : d.words
+            ? <>Write-ups, spaces and items matching “{d.words}”</>
+            : d.active.fit
+              ? <>What takes {d.active.fit.text}{d.active.fit.upright ? ", upright" : ""}</>
+              : "Write-ups, spaces and items"}
+      </h1>
+      <SearchForm params={params} q={d.state === "results" ? d.words : d.q} fit={{ text: d.fitText, unit: d.fitUnit, upright: d.fitUpright }} />
+      {d.state === "problem" && (
+        <div role="alert" className="mt-6 max-w-2xl rounded-lg border-l-4 border-bootstripe-600 bg-bootstripe-50 p-4 text-bootstripe-800">
+          <p className="font-medium">That search could not be read: {d.problem.message}</p>
+          <p className="mt-2 text-step--1">
+            <Link to={searchHref(params, { [d.problem.parameter]: null })}>Search again without it</Link>
           </p>
         </div>
       )}
-      {!q && <p className="mt-4 text-ink-soft">Type what you would ask another owner, such as “battery box under the settee”.</p>}
-      <div className="mt-6 grid gap-4">
-        {results.map((w) => <WriteupCard key={w.id} writeup={w} />)}
+      {d.state === "start" && <SyntaxHelp intro />}
+      {d.state === "results" && <Results d={d} params={params} />}
+    </div>
+  );
+}
+
+function SearchForm({ params, q, fit }: { params: URLSearchParams; q: string; fit: { text: string; unit: LengthUnit; upright: boolean } }) {
+  const keep = ["system", "zone", "measured", "year", "type"].filter((k) => params.get(k));
+  return (
+    <Form method="get" action="/search" role="search" aria-label="Search and narrow" className="mt-5 rounded-lg border border-cloth-200 bg-white/70 p-4">
+      {keep.map((k) => <input key={k} type="hidden" name={k} value={params.get(k) ?? ""} />)}
+      <div className="flex flex-wrap items-end gap-3">
+        <div className="flex min-w-[16rem] flex-1 flex-col">
+          <SearchBox
+            key={q}
+            id="search-words"
+            label="Words to search for"
+            labelClassName="mb-1 block font-medium text-ink"
+            defaultValue={q}
+            placeholder="battery box under the settee"
+            inputClassName={inputClass}
+          />
+        </div>
+        <button type="submit" className={buttonClass}>Search</button>
       </div>
+      <details className="mt-3 text-step--1" open={Boolean(params.get("hull") || fit.text)}>
+        <summary className="cursor-pointer font-medium text-deep-700">My hull, and what must fit</summary>
+        <div className="mt-3 flex flex-wrap items-end gap-4">
+          <div>
+            <label htmlFor="search-hull" className="block font-medium text-ink">Applies to hull</label>
+            <input id="search-hull" name="hull" defaultValue={params.get("hull") ?? ""} placeholder="147, mk1 or 120-298" aria-describedby="search-hull-hint" className={`${inputClass} w-48`} />
+            <p id="search-hull-hint" className="mt-1 text-ink-soft">A hull number, Mk I / Mk II, or a range.</p>
+          </div>
+          <div>
+            <label htmlFor="search-fit" className="block font-medium text-ink">Must fit (length × width × height)</label>
+            <input id="search-fit" name="fit" defaultValue={fit.text} placeholder="13 x 7 x 9 1/2" aria-describedby="search-fit-hint" className={`${inputClass} w-56`} />
+            <p id="search-fit-hint" className="mt-1 text-ink-soft">Spaces it fits, through their opening, and the write-ups that used them.</p>
+          </div>
+          <div>
+            <label htmlFor="search-unit" className="block font-medium text-ink">Unit</label>
+            <select id="search-unit" name="unit" defaultValue={fit.unit} className={`${inputClass} w-28`}>
+              <option value="in">inches</option>
+              <option value="mm">mm</option>
+            </select>
+          </div>
+          <label className="flex items-center gap-2 pb-3 font-medium text-ink">
+            <input type="checkbox" name="upright" value="true" defaultChecked={fit.upright} className="size-5 accent-deep-700" />
+            Upright only
+          </label>
+          <button type="submit" className={quietButtonClass}>Apply</button>
+        </div>
+      </details>
+    </Form>
+  );
+}
+
+type ResultsData = Extract<Route.ComponentProps["loaderData"], { state: "results" }>;
+
+function Results({ d, params }: { d: ResultsData; params: URLSearchParams }) {
+  const { answer, facets, active } = d;
+  const pages = pageCount(answer.total);
+  // Each kind's results together, the kinds in the order of their best result on this page.
+  const byKind = SEARCH_KINDS.map((k) => ({ kind: k, results: answer.results.filter((r) => r.type === k) }))
+    .filter((g) => g.results.length)
+    .sort((a, b) => answer.results.indexOf(a.results[0]) - answer.results.indexOf(b.results[0]));
+  const kindCount = (k: SearchKind) => facets.kinds.find((x) => x.value === k)?.count ?? 0;
+  const first = (d.page - 1) * PAGE_SIZE + 1;
+  return (
+    <div className="mt-6 grid gap-8 md:grid-cols-[15rem_1fr]">
+      <FacetPanel facets={facets} active={active} params={params} />
+      <div className="min-w-0">
+        <ActiveFilters active={active} params={params} words={d.words} />
+        <div aria-live="polite">
+          {answer.total > 0 ? (
+            <p className="text-ink-soft" id="search-summary">
+              {answer.total} {answer.total === 1 ? "result" : "results"}
+              {pages > 1 ? `, ${first}–${Math.min(first + PAGE_SIZE - 1, answer.total)} shown (page ${d.page} of ${pages})` : ""}
+              {answer.matched !== "none" ? ", best matches first" : active.fit ? ", snuggest first" : ""}.
+            </p>
+          ) : null}
+          {answer.suggestion && (
+            <p className="mt-2 font-medium">
+              Did you mean{" "}
+              <Link to={searchHref(params, { q: answer.suggestion, fit: params.get("fit") })} className="italic">{answer.suggestion}</Link>?
+            </p>
+          )}
+          {answer.matched === "any" && (
+            <p className="mt-2 rounded-md bg-cloth-100 p-3 text-step--1">
+              Nothing has all of your words, so these have some of them. Fewer, plainer words often find more.
+            </p>
+          )}
+          {answer.synonyms.length > 0 && answer.total > 0 && (
+            <p className="mt-2 text-step--1 text-ink-soft">
+              Also found by the class's other words for the same thing: {answer.synonyms.join(", ")}.
+            </p>
+          )}
+        </div>
+        {answer.total === 0 && <NothingFound d={d} />}
+        {byKind.map((g) => (
+          <section key={g.kind} aria-labelledby={`group-${g.kind}`} className="mt-6">
+            <h2 id={`group-${g.kind}`} className="text-step-1 font-semibold text-deep-900">
+              {KIND_LABEL[g.kind].many} <span className="text-step--1 font-normal text-ink-soft">({kindCount(g.kind)} in all)</span>
+            </h2>
+            <ol className="mt-3 grid gap-3">
+              {g.results.map((r) => <ResultCard key={`${r.type}-${r.id}`} r={r} unit={d.unit} />)}
+            </ol>
+          </section>
+        ))}
+        {pages > 1 && <Pager page={d.page} pages={pages} params={params} />}
+      </div>
+    </div>
+  );
+}
+
+function ResultCard({ r, unit }: { r: SearchResult; unit: LengthUnit }) {
+  const det = r.detail;
+  return (
+    <li>
+      <article className="rounded-lg border border-cloth-200 bg-white/70 p-4 shadow-xs">
+        <h3 className="text-step-0 font-semibold leading-snug">
+          <Link to={r.url} className="text-deep-900 no-underline hover:underline">{r.title}</Link>
+        </h3>
+        <p className="mt-1 text-step--1 text-ink-soft">
+          {det.type === "writeup" && (
+            <>
+              {det.author}
+              {det.hullNumber ? ` · hull ${det.hullNumber}` : ""}
+              {det.publishedAt ? ` · ${formatDate(det.publishedAt)}` : ""}
+              {` · ${describeHullRange(det.hulls)}`}
+              {det.doneToo > 0 ? ` · done on ${det.doneToo} more ${det.doneToo === 1 ? "boat" : "boats"}` : ""}
+            </>
+          )}
+          {det.type === "space" && (
+            <>
+              Space · {det.zone} · {describeHullRange(det.hulls)}
+              {det.measurements > 0 ? ` · measured by members ${det.measurements} ${det.measurements === 1 ? "time" : "times"}` : ""}
+            </>
+          )}
+          {det.type === "item" && (
+            <>Catalogue item · {describeBox(det.box, unit)}{det.upright ? " · stays upright" : ""}</>
+          )}
+        </p>
+        {r.snippet.text && <SnippetText snippet={r.snippet} />}
+        {r.systems.length > 0 && <div className="mt-3"><SystemChips systems={r.systems} /></div>}
+      </article>
+    </li>
+  );
+}
+
+function Pager({ page, pages, params }: { page: number; pages: number; params: URLSearchParams }) {
+  const to = (n: number) => searchHref(params, { page: n === 1 ? null : String(n) });
+  const numbers = Array.from({ length: pages }, (_, i) => i + 1).filter((n) => n === 1 || n === pages || Math.abs(n - page) <= 2);
+  return (
+    <nav aria-label="Pages of results" className="mt-8 flex flex-wrap items-center gap-2 text-step--1">
+      {page > 1 ? <Link to={to(page - 1)} rel="prev" className={quietButtonClass}>Previous page</Link> : null}
+      <ul className="flex flex-wrap gap-1">
+        {numbers.map((n, i) => (
+          <li key={n} className="flex items-center gap-1">
+            {i > 0 && numbers[i - 1] !== n - 1 && <span aria-hidden="true">…</span>}
+            {n === page ? (
+              <span aria-current="page" className="rounded-md bg-deep-700 px-3 py-2 font-medium text-cloth-50">{n}</span>
+            ) : (
+              <Link to={to(n)} aria-label={`Page ${n}`} className="rounded-md px-3 py-2 hover:bg-cloth-100">{n}</Link>
+            )}
+          </li>
+        ))}
+      </ul>
+      {page < pages ? <Link to={to(page + 1)} rel="next" className={quietButtonClass}>Next page</Link> : null}
+    </nav>
+  );
+}
+
+// ---------------------------------------------------------------------------------------------
+// Narrowing: each choice is a link (no script needed) with the number of results it would give.
+
+function FacetPanel({ facets, active, params }: { facets: Facets; active: ResultsData["active"]; params: URLSearchParams }) {
+  return (
+    <aside aria-label="Narrow the results" className="text-step--1">
+      <h2 className="text-step-0 font-semibold text-deep-900">Narrow the results</h2>
+      <FacetList
+        title="Kind"
+        param="type"
+        current={active.kind}
+        anyLabel="All kinds"
+        options={facets.kinds.map((k) => ({ value: k.value, label: KIND_LABEL[k.value as SearchKind].many, count: k.count }))}
+        params={params}
+      />
+      <FacetList title="System" param="system" current={params.get("system")} anyLabel="Any system" options={facets.systems} params={params} />
+      <FacetList title="Zone of the boat" param="zone" current={params.get("zone")} anyLabel="Anywhere aboard" options={facets.zones} params={params} />
+      <FacetList
+        title="Applies to"
+        param="hull"
+        current={active.hull?.text ?? null}
+        anyLabel="Every hull"
+        options={facets.hulls.map((h) => ({ value: h.value, label: h.label, count: h.count }))}
+        params={params}
+      />
+      <FacetList
+        title="Measurements"
+        param="measured"
+        current={active.measured ? "true" : null}
+        anyLabel="With or without"
+        options={[{ value: "true", label: "With measured spaces", count: facets.measured }]}
+        params={params}
+      />
+      {facets.years.length > 0 && (
+        <FacetList title="Published in" param="year" current={active.year ? String(active.year) : null} anyLabel="Any year" options={facets.years} params={params} />
+      )}
+    </aside>
+  );
+}
+
+function FacetList({
+  title, param, current, anyLabel, options, params,
+}: {
+  title: string;
+  param: string;
+  current: string | null;
+  anyLabel: string;
+  options: { value: string; label: string; count: number }[];
+  params: URLSearchParams;
+}) {
+  const id = `facet-${param}`;
+  return (
+    <section aria-labelledby={id} className="mt-5">
+      <h3 id={id} className="font-semibold uppercase tracking-wide text-ink-soft">{title}</h3>
+      <ul className="mt-1.5 grid gap-0.5">
+        <li>
+          {current ? (
+            <Link to={searchHref(params, { [param]: null })} className="block rounded px-2 py-1 hover:bg-cloth-100">{anyLabel}</Link>
+          ) : (
+            <span className="block rounded px-2 py-1 font-medium text-deep-900" aria-current="true">{anyLabel}</span>
+          )}
+        </li>
+        {options.map((o) => {
+          const on = current === o.value;
+          const label = `${o.label} (${o.count})`;
+          return (
+            <li key={o.value}>
+              {on ? (
+                <span aria-current="true" className="flex justify-between gap-2 rounded bg-deep-700 px-2 py-1 font-medium text-cloth-50">
+                  <span>{o.label}</span><span>{o.count}</span>
+                </span>
+              ) : o.count === 0 ? (
+                <span className="flex justify-between gap-2 px-2 py-1 text-ink-soft/70" aria-label={label}>
+                  <span>{o.label}</span><span>0</span>
+                </span>
+              ) : (
+                <Link to={searchHref(params, { [param]: o.value })} aria-label={label} className="flex justify-between gap-2 rounded px-2 py-1 hover:bg-cloth-100">
+                  <span>{o.label}</span><span className="text-ink-soft">{o.count}</span>
+                </Link>
+              )}
+            </li>
+          );
+        })}
+      </ul>
+    </section>
+  );
+}
+
+function ActiveFilters({ active, params, words }: { active: ResultsData["active"]; params: URLSearchParams; words: string }) {
+  const chips: { label: string; remove: Record<string, string | null> }[] = [];
+  if (active.kind) chips.push({ label: `Only ${KIND_LABEL[active.kind].many.toLowerCase()}`, remove: { type: null } });
+  if (active.system) chips.push({ label: `System: ${active.system}`, remove: { system: null } });
+  if (active.zone) chips.push({ label: `Zone: ${active.zone}`, remove: { zone: null } });
+  if (active.hull) chips.push({ label: `Applies to ${active.hull.label}`, remove: { hull: null } });
+  if (active.measured) chips.push({ label: "With measured spaces", remove: { measured: null } });
+  if (active.year) chips.push({ label: `Published in ${active.year}`, remove: { year: null } });
+  if (active.fit) {
+    chips.push({
+      label: `Must fit ${active.fit.text}${active.fit.upright ? ", upright" : ""}`,
+      remove: active.fit.fromWords ? { q: words || null, fit: null, upright: null } : { fit: null, upright: null },
+    });
+  }
+  if (!chips.length) return null;
+  return (
+    <ul aria-label="Narrowed by" className="mb-3 flex flex-wrap gap-2 text-step--1">
+      {chips.map((c) => (
+        <li key={c.label} className="flex items-center gap-2 rounded-sm border border-deep-200 bg-deep-50 px-2 py-1 text-deep-700">
+          {c.label}
+          <Link to={searchHref(params, c.remove)} aria-label={`Remove: ${c.label}`} className="font-semibold no-underline">×</Link>
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+function NothingFound({ d }: { d: ResultsData }) {
+  return (
+    <div className="mt-4 max-w-2xl rounded-lg bg-cloth-100 p-5">
+      <p className="font-medium">
+        {d.answer.onlyCommonWords
+          ? "Those are all very common words, so there is nothing to look for. Add a word that says what the job is about."
+          : "Nothing published matches that search yet."}
+      </p>
+      {d.filtered && d.words && (
+        <p className="mt-2">
+          <Link to={searchHref(new URLSearchParams({ q: d.words }), {})}>Search for the words without the filters</Link>
+        </p>
+      )}
+      <SyntaxHelp />
+    </div>
+  );
+}
+
+function SyntaxHelp({ intro = false }: { intro?: boolean }) {
+  const example = (q: string) => (
+    <Link to={`/search?q=${encodeURIComponent(q)}`} className="font-mono text-[0.95em]">{q}</Link>
+  );
+  return (
+    <div className={intro ? "mt-6 max-w-2xl" : "mt-4"}>
+      {intro && (
+        <p className="text-ink-soft">
+          Type what you would ask another owner. One search looks through the published write-ups, the measured spaces
+          and the catalogue of items.
+        </p>
+      )}
+      <h2 className={intro ? "mt-5 text-step-1 font-semibold" : "mt-3 font-semibold"}>How to search</h2>
+      <ul className="mt-2 grid gap-1.5 text-step--1">
+        <li>Plain words find what has all of them: {example("battery box under the settee")}</li>
+        <li>Quotes keep words together as a phrase: {example('"cockpit locker" tray')}</li>
+        <li>A minus leaves a word out: {example("battery -outboard")}</li>
+        <li>“or” finds either word: {example("lazarette or transom")}</li>
+        <li>Sizes find what fits: {example("what fits 13 x 7 x 9 1/2 in upright")}</li>
+        <li>
+          The class's other words for the same thing are searched too: a settee is also a berth or a bunk, the forepeak
+          the V-berth, the stern locker the lazarette, the head the toilet.
+        </li>
+      </ul>
     </div>
   );
 }

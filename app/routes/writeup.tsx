@@ -1,6 +1,9 @@
 import { data, Link } from "react-router";
 import type { Route } from "./+types/writeup";
 import { CautionList } from "~/components/cautions";
+import { Comments } from "~/components/comments";
+import { DoneToo } from "~/components/done-too";
+import { Notice } from "~/components/ui/field";
 import { formatDate, SystemChips } from "~/components/writeup-card";
 import { db } from "~/db/index.server";
 import { cautionsFor } from "~/domain/cautions";
@@ -8,15 +11,20 @@ import { describeHullRange } from "~/domain/hulls";
 import { renderMarkdown } from "~/domain/markdown";
 import { formatLength, formatWeight } from "~/domain/units";
 import { getPublishedWriteup } from "~/models/writeups.server";
+import { loadConversation } from "./conversation.server";
+import { WriteupCalculations } from "~/components/writeup-calculations";
+import { listWriteupCalculations } from "~/models/calculations.server";
+import { readerUnit } from "./reader-unit.server";
 
-export async function loader({ params }: Route.LoaderArgs) {
+export async function loader({ params, request }: Route.LoaderArgs) {
   const writeup = await getPublishedWriteup(db, params.slug);
   if (!writeup) throw data("No such write-up", { status: 404 });
   const { bodyMarkdown, ...rest } = writeup;
   const systems = writeup.systems.map((sys) => sys.slug);
   // Until readers choose their units (accounts), lengths and weights are shown in inches and pounds.
   const units = { length: "in" as const, weight: "lb" as const };
-  return {
+  const { conversation, headers } = await loadConversation(request, { id: writeup.id, slug: writeup.slug, authorHull: writeup.hullNumber });
+  return data({
     writeup: {
       ...rest,
       html: renderMarkdown(bodyMarkdown).html,
@@ -30,7 +38,10 @@ export async function loader({ params }: Route.LoaderArgs) {
       })),
     },
     cautions: cautionsFor(systems),
-  };
+    conversation,
+    calculations: await listWriteupCalculations(db, writeup.id),
+    readerUnit: await readerUnit(request),
+  }, { headers });
 }
 
 export function meta({ loaderData }: Route.MetaArgs) {
@@ -44,7 +55,7 @@ export function meta({ loaderData }: Route.MetaArgs) {
 const DIFFICULTY: Record<string, string> = { easy: "Straightforward", moderate: "Takes some skill", hard: "Demanding" };
 
 export default function WriteupPage({ loaderData }: Route.ComponentProps) {
-  const { writeup, cautions } = loaderData;
+  const { writeup, cautions, conversation } = loaderData;
   const facts = [
     ["Applies to", describeHullRange({ from: writeup.hullFrom, to: writeup.hullTo })],
     ["Done on", writeup.hullNumber ? `Hull ${writeup.hullNumber}${writeup.boatName ? `, ${writeup.boatName}` : ""}` : ""],
@@ -69,6 +80,12 @@ export default function WriteupPage({ loaderData }: Route.ComponentProps) {
           className="prose prose-lg mt-8 max-w-none font-serif prose-headings:text-deep-900 prose-a:text-deep-700 prose-table:text-step--1"
           dangerouslySetInnerHTML={{ __html: writeup.html }}
         />
+        <WriteupCalculations calculations={loaderData.calculations} unit={loaderData.readerUnit} />
+        <div id="conversation" className="mt-12 space-y-10 border-t border-cloth-200 pt-8">
+          {conversation.notice && <Notice>{conversation.notice}</Notice>}
+          <DoneToo slug={writeup.slug} view={conversation.doneToo} />
+          <Comments slug={writeup.slug} comments={conversation.comments} signedIn={conversation.signedIn} draft={conversation.draft} />
+        </div>
       </div>
       <aside className="space-y-8 text-step--1">
         <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-2 rounded-lg bg-cloth-100 p-4">

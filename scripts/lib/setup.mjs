@@ -248,6 +248,33 @@ export async function startMailStandin({ port, dir, env = process.env }) {
   return standin;
 }
 
+/**
+ * The S3 stand-in (scripts/s3-standin.ts) as a child on 127.0.0.1:port, keeping its objects in `dir`,
+ * with `bucket` made at start; resolves once it accepts connections. Returns what spawnChild returns.
+ */
+export async function startPhotoStandin({ port, dir, bucket, env = process.env }) {
+  const standin = spawnChild(bin("tsx"), ["scripts/s3-standin.ts", "--port", String(port), "--dir", dir, "--bucket", bucket], env);
+  try {
+    await waitForPort(port, "127.0.0.1", standin.child, "The photo store stand-in");
+  } catch (error) {
+    standin.child.kill("SIGTERM");
+    throw error;
+  }
+  return standin;
+}
+
+/** The variables that point the app at a photo store stand-in on 127.0.0.1:port. */
+export function photoStandinEnv(port, bucket) {
+  return {
+    S3_ENDPOINT: `http://127.0.0.1:${port}`,
+    S3_REGION: "us-east-1",
+    S3_BUCKET: bucket,
+    // The credentials s3rver accepts.
+    S3_ACCESS_KEY_ID: "S3RVER",
+    S3_SECRET_ACCESS_KEY: "S3RVER",
+  };
+}
+
 /** Starts a long-running child that shares our terminal; resolves its exit code. */
 export function spawnChild(cmd, args, env) {
   const child = spawn(cmd, args, { stdio: "inherit", cwd: root, env });

@@ -1,0 +1,615 @@
+// One search over published write-ups, spaces and catalogue items, on PostgreSQL full-text
+// search: the weighted `search` columns (app/db/schema.ts), the class's synonyms added to the
+// query by search_expand() (drizzle/*_search_vocabulary.sql), ranking with ts_rank_cd and a mild
+// boost for write-ups that other boats have done too, snippets with ts_headline for the rows
+// shown only; facets with counts, type-ahead suggestions and "did you mean".
+// Every function takes the db (or a transaction) first.
+import { sql, type SQL } from "drizzle-orm";
+import { MAX_LIMIT } from "~/domain/fit-search";
+import { describeHullRange, LAST_HULL, VARIANTS, type HullRange } from "~/domain/hulls";
+import {
+  anyOfWords, FEW_RESULTS, HIT_END, HIT_START, queryWords, readHeadline, replaceWords, typeaheadWords,
+  type SearchFilters, type SearchKind, type SearchRequest, type Snippet,
+} from "~/domain/search";
+import type { Box } from "~/domain/units";
+import { findFittingSpaces, type DbOrTx } from "./spaces.server";
+
+/** The text search configuration of every `search` column (and so of every query). */
+const CONFIG = sql.raw("'english'::regconfig");
+
+/**
+ * ts_rank_cd's weights for D, C, B, A (body C, tags and summary B, title A). PostgreSQL's defaults
+ * are {0.1, 0.2, 0.4, 1.0}; the body counts half of that here, so that a word in a title
+ * outranks the same word only in the body of another write-up (on the demo class, for every such
+ * pair, by a factor of 1.6 or more) even when the body repeats it.
+ */
+const WEIGHTS = sql.raw("'{0.05, 0.1, 0.4, 1.0}'::float4[]");
+/** Normalisation 1: the rank divided by 1 + the logarithm of the document's length. */
+const NORMALISATION = sql.raw("1");
+
+/**
+ * The mild boost for a write-up that other boats have done too: 1 + ln(1 + n) / 10, so 1 boat
+ * adds 7 %, 10 boats 24 %, 100 boats 46 %: it orders near-equal matches, never a weak match
+ * above a strong one. n counts at most the class's hulls, so the boost is at most MAX_BOOST.
+ */
+export function doneTooBoost(n: number): number {
+  return 1 + Math.log(1 + Math.min(n, LAST_HULL)) / 10;
+}
+export const MAX_BOOST = doneTooBoost(LAST_HULL);
+const DONE_TOO_BOOST = (writeupId: SQL) =>
+  sql`(1 + ln(1 + least(${LAST_HULL}::int, (select count(*) from done_too d where d.writeup_id = ${writeupId}))) / 10)`;
+
+const HEADLINE_OPTIONS = `StartSel=${HIT_START}, StopSel=${HIT_END}, MaxFragments=2, MaxWords=28, MinWords=12, ShortWord=3, FragmentDelimiter=" … "`;
+
+/** A document's text with the hit markers removed, so only the database's markers mark hits. */
+const unmarked = (text: SQL) => sql`translate(${text}, ${HIT_START + HIT_END}, '')`;
+
+export type SearchResult = {
+  type: SearchKind;
+  id: number;
+  slug: string;
+  title: string;
+  url: string;
+  snippet: Snippet;
+  systems: { slug: string; name: string }[];
+  score: number;
+  /** What the page shows beside the title. */
+  detail: WriteupDetail | SpaceDetail | ItemDetail;
+};
+
+export type WriteupDetail = {
+  type: "writeup";
+  author: string;
+  hullNumber: number | null;
+  publishedAt: string | null;
+  hulls: HullRange;
+  doneToo: number;
+};
+export type SpaceDetail = { type: "space"; zone: string; hulls: HullRange; measurements: number };
+export type ItemDetail = { type: "item"; box: Box; upright: boolean; battery: boolean };
+
+export type SearchAnswer = {
+  total: number;
+  results: SearchResult[];
+  /** A query with misspelt words replaced, when the query finds little and the replacement finds more. */
+  suggestion: string | null;
+  /** "all": results have all the words; "any": none had all, these have some; "none": no words were asked. */
+  matched: "all" | "any" | "none";
+  /** The query as PostgreSQL ran it, with the synonyms added (empty: no words). */
+  tsquery: string;
+  /** The class's other words for what was asked, also searched for ("berth", "bunk" for "settee"). */
+  synonyms: string[];
+  /** The words the results match (the query, or its words joined by "or" when loosened). */
+  words: string;
+  /** Only common words ("the", "under"): nothing to search for. */
+  onlyCommonWords: boolean;
+};
+
+// ---------------------------------------------------------------------------------------------
+// The query.
+
+/** The words as a tsquery with the class's synonyms: websearch_to_tsquery, then search_expand. */
+export function tsqueryOf(words: string): SQL {
+  return sql`search_expand(websearch_to_tsquery(${CONFIG}, ${words}))`;
+}
+
+type Branch = { kind: SearchKind; conditions: SQL[] };
+
+/** The filters as SQL, per kind; a kind a filter cannot apply to is left out (null). */
+function branches(f: SearchFilters, fitSpaceIds: number[] | null): Branch[] {
+  const ids = fitSpaceIds === null ? null : sql`${`{${fitSpaceIds.join(",")}}`}::int[]`;
+  const w: SQL[] = [sql`w.status = 'published'`];
+  if (f.system) w.push(sql`exists (select 1 from writeup_systems ws where ws.writeup_id = w.id and ws.system_slug = ${f.system})`);
+  if (f.zone) w.push(sql`exists (select 1 from writeup_zones wz where wz.writeup_id = w.id and wz.zone_slug = ${f.zone})`);
+  if (f.hull) w.push(sql`w.hull_from <= ${f.hull.to}::int and w.hull_to >= ${f.hull.from}::int`);
+  if (f.measured) w.push(sql`exists (select 1 from writeup_spaces x where x.writeup_id = w.id)`);
+  if (f.year) w.push(sql`w.published_at >= make_timestamptz(${f.year}::int, 1, 1, 0, 0, 0, 'UTC') and w.published_at < make_timestamptz(${f.year + 1}::int, 1, 1, 0, 0, 0, 'UTC')`);
+  if (ids) w.push(sql`exists (select 1 from writeup_spaces x where x.writeup_id = w.id and x.space_id = any(${ids}))`);
+
+  const sp: SQL[] = [];
+  if (f.zone) sp.push(sql`sp.zone_slug = ${f.zone}`);
+  if (f.hull) sp.push(sql`sp.hull_from <= ${f.hull.to}::int and sp.hull_to >= ${f.hull.from}::int`);
+  if (f.measured) sp.push(sql`exists (select 1 from space_measurements m where m.space_id = sp.id)`);
+  if (ids) sp.push(sql`sp.id = any(${ids})`);
+
+  const out: Branch[] = [{ kind: "writeup", conditions: w }];
+  // Spaces have no system and no date; catalogue items no system, zone, hull range, measurement or date.
+  if (!f.system && !f.year) out.push({ kind: "space", conditions: sp });
+  if (!f.system && !f.zone && !f.measured && !f.year && !ids) out.push({ kind: "item", conditions: [] });
+  return out.filter((b) => f.kind === null || b.kind === f.kind);
+}
+
+const TABLE: Record<SearchKind, { from: SQL; alias: SQL; dated: SQL; boost: SQL | null }> = {
+  writeup: { from: sql.raw("writeups w"), alias: sql.raw("w"), dated: sql.raw("w.published_at"), boost: DONE_TOO_BOOST(sql.raw("w.id")) },
+  space: { from: sql.raw("spaces sp"), alias: sql.raw("sp"), dated: sql.raw("null::timestamptz"), boost: null },
+  item: { from: sql.raw("items i"), alias: sql.raw("i"), dated: sql.raw("null::timestamptz"), boost: null },
+};
+
+/**
+ * How many matches of one kind are ranked. A query that matches more (a single common word over
+ * a large collection) ranks the most recent RANK_WINDOW of them, so that its cost stays bounded;
+ * the total still counts every match.
+ */
+export const RANK_WINDOW = 2000;
+
+/**
+ * The common table expressions of a search: per kind, `m_<kind>`, every row that matches the
+ * words (if any) and the filters, and `hits`, the most recent RANK_WINDOW of those with their raw
+ * score (before the done-too boost) and whether the boost applies. Without words, a box to fit
+ * orders the spaces snuggest first (the fit check's order), each write-up just after the
+ * snuggest space it used; otherwise write-ups more boats have done first.
+ */
+function hitsSql(words: boolean, list: Branch[], fitIds: number[] | null): { ctes: SQL; total: SQL } {
+  const ids = fitIds === null ? null : sql`${`{${fitIds.join(",")}}`}::int[]`;
+  if (!list.length) {
+    return {
+      ctes: sql`hits as (select null::text as type, null::int as id, null::float8 as raw, false as boosted, null::timestamptz as dated where false)`,
+      total: sql`0`,
+    };
+  }
+  const matches: SQL[] = [];
+  const parts = list.map((b) => {
+    const t = TABLE[b.kind];
+    const m = sql.raw(`m_${b.kind}`);
+    const conditions = [...b.conditions];
+    let score: SQL = sql`0::float8`;
+    let boosted = false;
+    if (words) {
+      conditions.push(sql`${t.alias}.search @@ (select query from q)`);
+      score = sql`ts_rank_cd(${WEIGHTS}, ${t.alias}.search, (select query from q), ${NORMALISATION})`;
+      boosted = t.boost !== null;
+    } else if (ids && b.kind === "space") {
+      score = sql`1.0 / array_position(${ids}, sp.id)`;
+    } else if (ids && b.kind === "writeup") {
+      score = sql`0.999 * (select max(1.0 / array_position(${ids}, x.space_id)) from writeup_spaces x
+                            where x.writeup_id = w.id and x.space_id = any(${ids}))`;
+    } else if (t.boost) {
+      score = sql`(${t.boost} - 1)`;
+    }
+    const where = conditions.length ? sql.join(conditions, sql` and `) : sql`true`;
+    matches.push(sql`${m} as materialized (select ${t.alias}.id, ${t.dated} as dated from ${t.from} where ${where})`);
+    return sql`select ${b.kind}::text as type, ${t.alias}.id, (${score})::float8 as raw, ${sql.raw(boosted ? "true" : "false")} as boosted, ${t.dated} as dated
+                 from ${t.from}
+                where ${t.alias}.id in (select id from ${m} order by dated desc nulls last, id desc limit ${RANK_WINDOW})`;
+  });
+  return {
+    ctes: sql`${sql.join(matches, sql`, `)}, hits as materialized (${sql.join(parts, sql` union all `)})`,
+    total: sql.join(list.map((b) => sql`(select count(*) from ${sql.raw(`m_${b.kind}`)})`), sql` + `),
+  };
+}
+
+/** The spaces that take the box outright (the fit check's candidate query and exact check). */
+async function fittingSpaceIds(db: DbOrTx, f: SearchFilters): Promise<number[] | null> {
+  if (!f.fit) return null;
+  const hits = await findFittingSpaces(db, {
+    item: f.fit.box, orientation: f.fit.orientation, clearanceMm: 0, count: 1, hull: null, limit: MAX_LIMIT,
+  });
+  return hits.filter((h) => h.verdict === "fits").map((h) => h.spaceId);
+}
+
+type Ranked = { type: SearchKind; id: number; score: number; total: number };
+
+/**
+ * The page of results and the total. Every match gets its rank; only those that could reach the
+ * page with the largest possible boost (their rank times MAX_BOOST at least the rank at the
+ * page's last place) have their done-too rows counted: the others stay below the page anyway.
+ */
+async function rank(db: DbOrTx, tsquery: string | null, f: SearchFilters, fitIds: number[] | null, limit: number, offset: number) {
+  const q = tsquery === null ? sql`select null::tsquery as query` : sql`select ${tsquery}::tsquery as query`;
+  const { ctes, total } = hitsSql(tsquery !== null, branches(f, fitIds), fitIds);
+  const r = await withIndexPlan(db, (tx) => tx.execute<Ranked & { total: number }>(sql`
+    with q as materialized (${q}),
+    ${ctes},
+    cut as (select raw from hits order by raw desc offset ${offset + limit - 1} limit 1),
+    scored as (
+      select type, id, dated,
+             case when boosted and raw * ${MAX_BOOST}::float8 >= coalesce((select raw from cut), 0)
+                  then raw * ${DONE_TOO_BOOST(sql.raw("hits.id"))}
+                  else raw end as score
+        from hits
+    )
+    select s.type, s.id, s.score, t.total::int as total
+      from (select ${total} as total) t
+      left join lateral (select * from scored order by score desc, dated desc nulls last, type, id limit ${limit} offset ${offset}) s on true
+     order by s.score desc, s.dated desc nulls last, s.type, s.id`));
+  const rows = r.rows.filter((x) => x.id !== null);
+  return { rows: rows.map((x) => ({ ...x, score: Number(x.score) })), total: r.rows[0]?.total ?? 0 };
+}
+
+/**
+ * Runs a ranking query in a transaction whose planner reads the matches through the GIN index.
+ * The planner does not know what testing a tsvector costs (reading it back from TOAST storage),
+ * and for a word in a fifth of the write-ups it would otherwise test every row; through the
+ * index it reads only the matches, two to three times faster on the benchmark's 100,000.
+ */
+async function withIndexPlan<T>(db: DbOrTx, work: (tx: DbOrTx) => Promise<T>): Promise<T> {
+  return db.transaction(async (tx) => {
+    await tx.execute(sql`set local enable_seqscan = off`);
+    return work(tx);
+  });
+}
+
+/** Titles, links, systems and snippets of the rows shown (ts_headline only for these). */
+async function describe(db: DbOrTx, rows: Ranked[], tsquery: string | null): Promise<SearchResult[]> {
+  const q = tsquery === null ? sql`null::tsquery` : sql`${tsquery}::tsquery`;
+  const idsOf = (kind: SearchKind) => rows.filter((r) => r.type === kind).map((r) => r.id);
+  const headline = (text: SQL, fallback: SQL) =>
+    tsquery === null
+      ? sql`left(${unmarked(fallback)}, 280)`
+      : sql`ts_headline(${CONFIG}, ${unmarked(text)}, (select query from q), ${HEADLINE_OPTIONS})`;
+  const asArray = (ids: number[]) => sql`${`{${ids.join(",")}}`}::int[]`;
+
+  const [writeups, spaces, items] = await Promise.all([
+    idsOf("writeup").length
+      ? db.execute<{
+          id: number; slug: string; title: string; headline: string; author: string; hull_number: number | null;
+          published_at: string | null; hull_from: number; hull_to: number; done_too: number; systems: { slug: string; name: string }[];
+        }>(sql`
+          with q as materialized (select ${q} as query)
+          select w.id, w.slug, w.title, ${headline(sql`w.summary || E'\n' || w.body_text`, sql`w.summary`)} as headline,
+                 u.display_name as author, b.hull_number, w.published_at, w.hull_from, w.hull_to,
+                 (select count(*) from done_too d where d.writeup_id = w.id)::int as done_too,
+                 coalesce((select json_agg(json_build_object('slug', s.slug, 'name', s.name) order by s.sort_order, s.slug)
+                             from writeup_systems ws join systems s on s.slug = ws.system_slug
+                            where ws.writeup_id = w.id), '[]'::json) as systems
+            from writeups w
+            join users u on u.id = w.author_id
+            left join boats b on b.id = w.boat_id
+           where w.id = any(${asArray(idsOf("writeup"))}) and w.status = 'published'`)
+      : null,
+    idsOf("space").length
+      ? db.execute<{ id: number; slug: string; name: string; headline: string; zone: string; hull_from: number; hull_to: number; measurements: number }>(sql`
+          with q as materialized (select ${q} as query)
+          select sp.id, sp.slug, sp.name, ${headline(sql`sp.obstructions`, sql`sp.obstructions`)} as headline,
+                 z.name as zone, sp.hull_from, sp.hull_to,
+                 (select count(*) from space_measurements m where m.space_id = sp.id)::int as measurements
+            from spaces sp join zones z on z.slug = sp.zone_slug
+           where sp.id = any(${asArray(idsOf("space"))})`)
+      : null,
+    idsOf("item").length
+      ? db.execute<{ id: number; slug: string; name: string; headline: string; kind: string; length_mm: number; width_mm: number; height_mm: number; orientation: string }>(sql`
+          with q as materialized (select ${q} as query)
+          select i.id, i.slug, i.name, ${headline(sql`i.note`, sql`i.note`)} as headline,
+                 i.kind, i.length_mm, i.width_mm, i.height_mm, i.orientation
+            from items i
+           where i.id = any(${asArray(idsOf("item"))})`)
+      : null,
+  ]);
+
+  const out: SearchResult[] = [];
+  for (const r of rows) {
+    if (r.type === "writeup") {
+      const w = writeups?.rows.find((x) => x.id === r.id);
+      if (!w) continue;
+      out.push({
+        type: "writeup", id: w.id, slug: w.slug, title: w.title, url: `/writeups/${w.slug}`,
+        snippet: readHeadline(w.headline ?? ""), systems: w.systems, score: r.score,
+        detail: {
+          type: "writeup", author: w.author, hullNumber: w.hull_number,
+          publishedAt: w.published_at ? new Date(w.published_at).toISOString() : null,
+          hulls: { from: w.hull_from, to: w.hull_to }, doneToo: w.done_too,
+        },
+      });
+    } else if (r.type === "space") {
+      const sp = spaces?.rows.find((x) => x.id === r.id);
+      if (!sp) continue;
+      out.push({
+        type: "space", id: sp.id, slug: sp.slug, title: sp.name, url: `/spaces/${sp.slug}`,
+        snippet: readHeadline(sp.headline ?? ""), systems: [], score: r.score,
+        detail: { type: "space", zone: sp.zone, hulls: { from: sp.hull_from, to: sp.hull_to }, measurements: sp.measurements },
+      });
+    } else {
+      const it = items?.rows.find((x) => x.id === r.id);
+      if (!it) continue;
+      out.push({
+        type: "item", id: it.id, slug: it.slug, title: it.name, url: `/items#item-${it.slug}`,
+        snippet: readHeadline(it.headline ?? ""), systems: [], score: r.score,
+        detail: {
+          type: "item", box: { length: Number(it.length_mm), width: Number(it.width_mm), height: Number(it.height_mm) },
+          upright: it.orientation === "upright", battery: it.kind === "battery-group" || /\bbatter(y|ies)\b/i.test(it.name),
+        },
+      });
+    }
+  }
+  return out;
+}
+
+export type QueryAnalysis = {
+  /** websearch_to_tsquery of the words (empty: only common words such as "the", "under"). */
+  parsed: string;
+  /** The same with the class's synonyms added. */
+  expanded: string;
+  /** The terms of every synonym group the words used ("settee" -> berth, bunk, settee). */
+  synonyms: string[];
+};
+
+/** What PostgreSQL makes of the words: parsed, expanded, and the synonym groups they touched. */
+export async function analyseQuery(db: DbOrTx, words: string): Promise<QueryAnalysis> {
+  const r = await db.execute<QueryAnalysis>(sql`
+    with p as (select websearch_to_tsquery(${CONFIG}, ${words}) as parsed),
+    m as (select ts_rewrite(p.parsed, 'SELECT target, placeholder FROM search_synonym_rules ORDER BY n')::text as marked from p)
+    select p.parsed::text as parsed, search_expand(p.parsed)::text as expanded,
+           coalesce((select array_agg(distinct s.term order by s.term)
+                       from search_synonym_rules r join search_synonyms s on s.group_name = r.group_name, m
+                      where strpos(m.marked, r.placeholder::text) > 0), '{}') as synonyms
+      from p`);
+  return r.rows[0];
+}
+
+/** The words as PostgreSQL runs them: parsed and expanded with the synonyms (empty: only common words). */
+async function expand(db: DbOrTx, words: string): Promise<string> {
+  const r = await db.execute<{ q: string }>(sql`select ${tsqueryOf(words)}::text as q`);
+  return r.rows[0].q;
+}
+
+/**
+ * The search: up to `limit` results from `offset`, best first, with the total. A query whose
+ * words are not all found anywhere is loosened to any of its words (when it uses no syntax);
+ * a query that finds little gets a "did you mean" from the vocabulary.
+ */
+export async function search(db: DbOrTx, req: SearchRequest): Promise<SearchAnswer> {
+  const words = queryWords(req.q).length ? req.q : null;
+  const [fitIds, first] = await Promise.all([
+    fittingSpaceIds(db, req.filters),
+    words === null ? null : analyseQuery(db, words),
+  ]);
+  let analysis = first;
+  const onlyCommonWords = analysis !== null && analysis.parsed === "";
+  let matched: SearchAnswer["matched"] = words === null || onlyCommonWords ? "none" : "all";
+  let used = words;
+  let tsquery = analysis?.expanded ?? null;
+  let ranked = onlyCommonWords
+    ? { rows: [] as Ranked[], total: 0 }
+    : await rank(db, tsquery, req.filters, fitIds, req.limit, req.offset);
+
+  let suggestion: string | null = null;
+  if (words !== null && !onlyCommonWords && ranked.total < FEW_RESULTS) {
+    const loose = ranked.total === 0 ? anyOfWords(words) : null;
+    const [better, relaxed] = await Promise.all([
+      didYouMean(db, words, req.filters, fitIds, ranked.total),
+      loose ? analyseQuery(db, loose).then(async (a) => ({ a, r: await rank(db, a.expanded, req.filters, fitIds, req.limit, req.offset) })) : null,
+    ]);
+    suggestion = better;
+    if (loose && relaxed && relaxed.r.total > 0) {
+      ranked = relaxed.r;
+      used = loose;
+      matched = "any";
+      analysis = relaxed.a;
+      tsquery = relaxed.a.expanded;
+    }
+  }
+
+  const typed = new Set(queryWords(req.q));
+  const results = await describe(db, ranked.rows, onlyCommonWords ? null : tsquery);
+  return {
+    total: ranked.total,
+    results,
+    suggestion,
+    matched,
+    tsquery: analysis?.expanded ?? "",
+    synonyms: (analysis?.synonyms ?? []).filter((t) => !t.toLowerCase().split(/\s+/).every((w) => typed.has(w))),
+    words: used ?? "",
+    onlyCommonWords,
+  };
+}
+
+// ---------------------------------------------------------------------------------------------
+// "Did you mean": each word of the query that finds nothing anywhere (not even through its stem)
+// and that no published text uses is replaced by the nearest word of the vocabulary (pg_trgm
+// similarity, the more used first), when the new query finds more than the old one (all words,
+// or else any of them).
+
+export async function didYouMean(
+  db: DbOrTx, words: string, filters: SearchFilters, fitIds: number[] | null, found: number,
+): Promise<string | null> {
+  const list = [...new Set(queryWords(words))].filter((w) => w.length >= 3 && !/^\d+$/.test(w));
+  if (!list.length) return null;
+  const r = await db.execute<{ word: string; better: string | null }>(sql`
+    select q.word,
+           (select v.word from search_vocabulary v
+             where v.word % q.word and v.word <> q.word
+             order by similarity(v.word, q.word) desc, v.documents desc, v.word
+             limit 1) as better
+      from unnest(${`{${list.map((w) => `"${w.replace(/["\\]/g, "")}"`).join(",")}}`}::text[]) as q(word)
+      cross join lateral (select plainto_tsquery(${CONFIG}, q.word) as lexemes) l
+     where not exists (select 1 from search_vocabulary v where v.word = q.word)
+       and numnode(l.lexemes) > 0
+       and not exists (select 1 from writeups w where w.status = 'published' and w.search @@ l.lexemes)
+       and not exists (select 1 from spaces sp where sp.search @@ l.lexemes)
+       and not exists (select 1 from items i where i.search @@ l.lexemes)`);
+  const replacements = new Map(r.rows.filter((x) => x.better).map((x) => [x.word, x.better as string]));
+  if (!replacements.size) return null;
+  const better = replaceWords(words, replacements);
+  if (better === words) return null;
+  if ((await rank(db, await expand(db, better), filters, fitIds, 1, 0)).total > found) return better;
+  const [looseBetter, looseWords] = [anyOfWords(better), anyOfWords(words)];
+  if (!looseBetter || !looseWords) return null;
+  const [b, w] = await Promise.all([
+    expand(db, looseBetter).then((q) => rank(db, q, filters, fitIds, 1, 0)),
+    expand(db, looseWords).then((q) => rank(db, q, filters, fitIds, 1, 0)),
+  ]);
+  return b.total > w.total ? better : null;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Facets: for each way of narrowing, how many results each choice would give, counted with the
+// words and every other filter that is set (so a choice never promises results it cannot give).
+
+export type FacetCount = { value: string; label: string; count: number };
+export type Facets = {
+  kinds: FacetCount[];
+  systems: FacetCount[];
+  zones: FacetCount[];
+  hulls: (FacetCount & { from: number; to: number })[];
+  measured: number;
+  years: FacetCount[];
+};
+
+export type HullChoice = { value: string; label: string; from: number; to: number };
+
+/** The hull choices offered: the variants, the reader's own boats, and the hull asked for. */
+export function hullChoices(ownHulls: number[], asked: SearchFilters["hull"]): HullChoice[] {
+  const choices: HullChoice[] = VARIANTS.map((v) => ({ value: v.key, label: describeHullRange(v), from: v.from, to: v.to }));
+  for (const h of ownHulls) choices.push({ value: String(h), label: `Hull ${h} (your boat)`, from: h, to: h });
+  if (asked && !choices.some((c) => c.from === asked.from && c.to === asked.to)) {
+    choices.push({ value: asked.text, label: describeHullRange(asked), from: asked.from, to: asked.to });
+  }
+  return choices;
+}
+
+export async function searchFacets(db: DbOrTx, req: SearchRequest, choices: HullChoice[]): Promise<Facets> {
+  const f = req.filters;
+  const fitIds = await fittingSpaceIds(db, f);
+  const words = queryWords(req.q).length ? req.q : null;
+  const match = (alias: string) => (words === null ? sql`true` : sql`${sql.raw(alias)}.search @@ (select query from q)`);
+  const ids = fitIds === null ? null : sql`${`{${fitIds.join(",")}}`}::int[]`;
+  const fits = (expr: SQL) => (ids === null ? sql`true` : expr);
+
+  const ok = {
+    system: f.system ? sql`${f.system} = any(systems)` : sql`true`,
+    zone: f.zone ? sql`${f.zone} = any(zones)` : sql`true`,
+    hull: f.hull ? sql`(hull_from <= ${f.hull.to}::int and hull_to >= ${f.hull.from}::int)` : sql`true`,
+    measured: f.measured ? sql`measured` : sql`true`,
+    year: f.year ? sql`year = ${f.year}::int` : sql`true`,
+    kind: f.kind ? sql`type = ${f.kind}` : sql`true`,
+    fit: sql`fits`,
+  };
+  type Key = keyof typeof ok;
+  const except = (...skip: Key[]) => sql.join((Object.keys(ok) as Key[]).filter((k) => !skip.includes(k)).map((k) => ok[k]), sql` and `);
+  const hullValues = choices.length
+    ? sql.join(choices.map((c) => sql`(${c.value}::text, ${c.from}::int, ${c.to}::int)`), sql`, `)
+    : sql`(null::text, 0, 0)`;
+
+  const r = await db.execute<{ facet: string; value: string | null; count: number }>(sql`
+    with q as materialized (select ${words === null ? sql`null::tsquery` : tsqueryOf(words)} as query),
+    m as (
+      select 'writeup'::text as type,
+             array(select ws.system_slug from writeup_systems ws where ws.writeup_id = w.id) as systems,
+             array(select wz.zone_slug from writeup_zones wz where wz.writeup_id = w.id) as zones,
+             w.hull_from, w.hull_to,
+             exists (select 1 from writeup_spaces x where x.writeup_id = w.id) as measured,
+             extract(year from w.published_at at time zone 'UTC')::int as year,
+             ${fits(sql`exists (select 1 from writeup_spaces x where x.writeup_id = w.id and x.space_id = any(${ids}))`)} as fits
+        from writeups w
+       where w.status = 'published' and ${match("w")}
+      union all
+      select 'space', '{}'::text[], array[sp.zone_slug], sp.hull_from, sp.hull_to,
+             exists (select 1 from space_measurements sm where sm.space_id = sp.id), null::int,
+             ${fits(sql`sp.id = any(${ids})`)}
+        from spaces sp
+       where ${match("sp")}
+      union all
+      select 'item', '{}'::text[], '{}'::text[], 1, 2147483647, false, null::int, ${ids === null ? sql`true` : sql`false`}
+        from items i
+       where ${match("i")}
+    )
+    select 'kind' as facet, type as value, count(*)::int as count from m where ${except("kind")} group by type
+    union all
+    select 'system', s, count(*)::int from m, unnest(systems) s where ${except("system")} group by s
+    union all
+    select 'zone', z, count(*)::int from m, unnest(zones) z where ${except("zone")} group by z
+    union all
+    select 'hull', c.value, count(m.type)::int
+      from (values ${hullValues}) as c(value, a, b)
+      left join m on m.hull_from <= c.b and m.hull_to >= c.a and ${except("hull")}
+     where c.value is not null
+     group by c.value
+    union all
+    select 'measured', null, count(*)::int from m where measured and ${except("measured")}
+    union all
+    select 'year', year::text, count(*)::int from m where year is not null and ${except("year")} group by year`);
+
+  const [names, counts] = [await searchTaxonomy(db), r.rows];
+  const pick = (facet: string) => counts.filter((c) => c.facet === facet);
+  const ordered = (list: { slug: string; name: string }[], facet: string) =>
+    list
+      .map((x) => ({ value: x.slug, label: x.name, count: pick(facet).find((c) => c.value === x.slug)?.count ?? 0 }))
+      .filter((x) => x.count > 0 || x.value === (facet === "system" ? f.system : f.zone));
+  return {
+    kinds: (["writeup", "space", "item"] as const).map((k) => ({
+      value: k, label: k, count: pick("kind").find((c) => c.value === k)?.count ?? 0,
+    })),
+    systems: ordered(names.systems, "system"),
+    zones: ordered(names.zones, "zone"),
+    hulls: choices.map((c) => ({ ...c, count: pick("hull").find((x) => x.value === c.value)?.count ?? 0 })),
+    measured: pick("measured")[0]?.count ?? 0,
+    years: pick("year")
+      .map((c) => ({ value: c.value ?? "", label: c.value ?? "", count: c.count }))
+      .sort((a, b) => Number(b.value) - Number(a.value)),
+  };
+}
+
+/** The systems and zones, in the class's order (for the filters and to check a parameter). */
+export async function searchTaxonomy(db: DbOrTx) {
+  const [systems, zones] = await Promise.all([
+    db.execute<{ slug: string; name: string }>(sql`select slug, name from systems order by sort_order, slug`),
+    db.execute<{ slug: string; name: string }>(sql`select slug, name from zones order by sort_order, slug`),
+  ]);
+  return { systems: systems.rows, zones: zones.rows };
+}
+
+// ---------------------------------------------------------------------------------------------
+// Type-ahead: titles of published write-ups, systems, zones, spaces and items whose words begin
+// with what has been typed so far.
+
+export type Suggestion = { type: "writeup" | "system" | "zone" | "space" | "item"; label: string; url: string };
+
+/** A tsquery of the words: whole words stemmed, the last as a beginning; `weights` restricts ("A": titles only). */
+function prefixQuery(words: { whole: string[]; prefix: string | null }, join: "&" | "|", weights = ""): SQL | null {
+  // The words hold only letters and digits (typeaheadWords), so quoting them is enough.
+  const terms: SQL[] = words.whole.map((w) => sql`to_tsquery(${CONFIG}, ${`'${w}'${weights ? `:${weights}` : ""}`})`);
+  if (words.prefix) {
+    const p = `'${words.prefix}':*${weights}`;
+    terms.push(sql`(to_tsquery('simple'::regconfig, ${p}) || to_tsquery(${CONFIG}, ${p}))`);
+  }
+  if (!terms.length) return null;
+  return sql.join(terms.map((t) => sql`(${t})`), join === "&" ? sql` && ` : sql` || `);
+}
+
+export async function suggest(db: DbOrTx, text: string, limit = 8): Promise<Suggestion[]> {
+  const words = typeaheadWords(text);
+  const all = [...words.whole, ...(words.prefix ? [words.prefix] : [])];
+  if (!all.length || all.join("").length < 2) return [];
+  const anyTitle = prefixQuery(words, "|", "A");
+  const anyName = prefixQuery(words, "|");
+  if (!anyTitle || !anyName) return [];
+  const r = await db.execute<{ type: Suggestion["type"]; label: string; slug: string; n: number }>(sql`
+    with t as materialized (select ${anyTitle} as title_q, ${anyName} as name_q),
+    titles as (
+      select 'writeup'::text as type, w.title as label, w.slug,
+             ts_rank('{0, 0, 0, 1}', w.search, (select title_q from t)) * ${DONE_TOO_BOOST(sql.raw("w.id"))} as n
+        from writeups w
+       where w.status = 'published' and w.search @@ (select title_q from t)
+       order by n desc, w.published_at desc
+       limit 5
+    ),
+    tags as (
+      select x.type, x.label, x.slug, ts_rank(to_tsvector(${CONFIG}, x.label), (select name_q from t)) as n
+        from (select 'system'::text as type, name as label, slug from systems
+              union all select 'zone', name, slug from zones) x
+       where to_tsvector(${CONFIG}, x.label) @@ (select name_q from t)
+       order by n desc, x.label
+       limit 3
+    ),
+    named as (
+      (select 'space'::text as type, sp.name as label, sp.slug, ts_rank(sp.search, (select name_q from t)) as n
+         from spaces sp where sp.search @@ (select name_q from t) order by n desc, sp.name limit 2)
+      union all
+      (select 'item', i.name, i.slug, ts_rank(i.search, (select name_q from t)) as n
+         from items i where i.search @@ (select name_q from t) order by n desc, i.name limit 2)
+    )
+    select type, label, slug, n from titles
+    union all select type, label, slug, n from tags
+    union all select type, label, slug, n from named`);
+  const url = (s: { type: Suggestion["type"]; slug: string }) =>
+    s.type === "writeup" ? `/writeups/${s.slug}`
+      : s.type === "system" ? `/search?system=${s.slug}`
+      : s.type === "zone" ? `/search?zone=${s.slug}`
+      : s.type === "space" ? `/spaces/${s.slug}`
+      : `/items#item-${s.slug}`;
+  const order: Suggestion["type"][] = ["writeup", "zone", "system", "space", "item"];
+  return r.rows
+    .sort((a, b) => order.indexOf(a.type) - order.indexOf(b.type) || Number(b.n) - Number(a.n))
+    .slice(0, limit)
+    .map((s) => ({ type: s.type, label: s.label, url: url(s) }));
+}
