@@ -128,6 +128,20 @@ function corpus() {
   return { sentences, obstructions: obstructions.length ? obstructions : sentences, words };
 }
 
+/**
+ * A topic model, so that words are spread over the write-ups as in a real collection: 400 topics,
+ * each a thing, a place and 60 words of the class's vocabulary; a write-up takes most of its
+ * words from its topic, some from anywhere, and a sentence of the demo write-ups. The queries are
+ * made from the same topics, as an owner describes one job.
+ */
+type Topic = { thing: string; place: string; words: string[] };
+function makeTopics(words: string[]): Topic[] {
+  const r = random(11);
+  return Array.from({ length: 400 }, () => ({
+    thing: pick(THINGS, r), place: pick(PLACES, r), words: Array.from({ length: 60 }, () => pick(words, r)),
+  }));
+}
+
 async function generate(db: Db, pool: pg.Pool, writeups: number, spaces: number) {
   const taxonomy = YAML.parse(fs.readFileSync(path.join(SEED, "taxonomy.yaml"), "utf8")) as Taxonomy;
   for (const [i, s] of taxonomy.systems.entries()) await db.execute(sql`insert into systems (slug, name, sort_order) values (${s.slug}, ${s.name}, ${i})`);
@@ -142,12 +156,7 @@ async function generate(db: Db, pool: pg.Pool, writeups: number, spaces: number)
   const TRIGGERS = ["writeups", "spaces", "items", "writeup_systems", "writeup_zones"];
   for (const table of TRIGGERS) await db.execute(sql.raw(`alter table ${table} disable trigger user`));
 
-  // A topic model, so that words are spread over the write-ups as in a real collection: 400
-  // topics, each a thing, a place and 60 words of the class's vocabulary; a write-up takes most of
-  // its words from its topic, some from anywhere, and a sentence of the demo write-ups.
-  const topics = Array.from({ length: 400 }, () => ({
-    thing: pick(THINGS), place: pick(PLACES), words: Array.from({ length: 60 }, () => pick(words)),
-  }));
+  const topics = makeTopics(words);
   const prose = (topic: (typeof topics)[number], n: number) => {
     const out: string[] = [];
     for (let i = 0; i < n; i++) {
@@ -274,18 +283,26 @@ function queries(): string[] {
     "fuel can locker", "outboard bracket transom", "cushions for the berths", "bilge pump", "stanchion butyl",
     "quarter berth leak", "water tank under settee", "head toilet", "shore power", "mast step",
   ];
-  const words = [...new Set([...THINGS, ...PLACES, ...ACTIONS].join(" ").toLowerCase().match(/[a-z-]{4,}/g) ?? [])].filter((w) => !["under", "behind", "with", "the"].includes(w));
+  // One job described in two or three words of its topic (the thing, the place, a word of its
+  // text); some with the syntax, some narrowed by a filter.
+  const topics = makeTopics(corpus().words);
+  const noun = (phrase: string) => phrase.replace(/^(the|a|an) /, "").split(" ").filter((w) => w.length > 2);
   const generated: string[] = [];
   while (generated.length < 200) {
-    const n = 1 + Math.floor(r() * 3);
-    const ws = Array.from({ length: n }, () => pick(words, r));
+    const t = pick(topics, r);
+    const thing = noun(t.thing);
+    const place = noun(t.place.replace(/^(under|in|on|at|behind|along|by) the /, ""));
     const shape = r();
-    let q = ws.join(" ");
-    if (shape < 0.1 && n > 1) q = `"${ws[0]} ${ws[1]}"${n > 2 ? ` ${ws[2]}` : ""}`;
-    else if (shape < 0.18 && n > 1) q = `${ws[0]} -${ws[1]}`;
-    else if (shape < 0.25 && n > 1) q = `${ws[0]} or ${ws[1]}`;
-    const narrow = r();
+    let q: string;
+    if (shape < 0.3) q = `${pick(thing, r)} ${pick(t.words, r)}`;
+    else if (shape < 0.5) q = `${pick(thing, r)} ${pick(place, r)}`;
+    else if (shape < 0.6) q = `${pick(t.words, r)} ${pick(t.words, r)} ${pick(place, r)}`;
+    else if (shape < 0.7) q = `"${thing.join(" ")}" ${pick(t.words, r)}`;
+    else if (shape < 0.78) q = `${pick(thing, r)} -${pick(pick(topics, r).words, r)}`;
+    else if (shape < 0.86) q = `${pick(thing, r)} or ${pick(noun(pick(topics, r).thing), r)}`;
+    else q = pick(thing, r);
     const params = new URLSearchParams({ q });
+    const narrow = r();
     if (narrow < 0.15) params.set("system", pick(["electrical", "joinery", "plumbing", "interior"], r));
     else if (narrow < 0.3) params.set("hull", pick(["mk1", "mk2", "147", "402"], r));
     else if (narrow < 0.35) params.set("zone", pick(["starboard-settee", "lazarette", "v-berth"], r));

@@ -190,9 +190,10 @@ async function fittingSpaceIds(db: DbOrTx, f: SearchFilters): Promise<number[] |
 type Ranked = { type: SearchKind; id: number; score: number; total: number };
 
 /**
- * The page of results and the total. Every match gets its rank; only those that could reach the
- * page with the largest possible boost (their rank times MAX_BOOST at least the rank at the
- * page's last place) have their done-too rows counted: the others stay below the page anyway.
+ * The page of results and the total. Every match in the window (RANK_WINDOW) gets its rank; only
+ * those that could reach the page with the largest possible boost (their rank times MAX_BOOST at
+ * least the rank at the page's last place) have their done-too rows counted: the others stay
+ * below the page anyway.
  */
 async function rank(db: DbOrTx, tsquery: string | null, f: SearchFilters, fitIds: number[] | null, limit: number, offset: number) {
   const q = tsquery === null ? sql`select null::tsquery as query` : sql`select ${tsquery}::tsquery as query`;
