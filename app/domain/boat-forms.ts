@@ -9,6 +9,7 @@
 import { z } from "zod";
 import { AWG_SIZES, INSULATION_RATINGS_C, type AllowedDropPct, type InsulationRatingC } from "./conductors";
 import type { CableRunInput, SystemVoltage } from "./cable";
+import type { ClassFigures } from "./ledger";
 import {
   formatLength,
   MAX_LENGTH_MM,
@@ -314,18 +315,8 @@ export function calibrationSchema(units: Units) {
 // ---------------------------------------------------------------------------------------------
 // Class particulars (administrators).
 
-export type ClassParticularsInput = {
-  lightDisplacementKg: number;
-  gmMm: number;
-  lwlMm: number;
-  beamMm: number;
-  loaMm: number;
-  lcfAftOfBowMm: number;
-  waterlineForwardEndMm: number;
-  gmLongitudinalMm: number | null;
-  mct1FtLbPerIn: number | null;
-  demo: boolean;
-};
+/** What the form yields is what is stored: the class figures of the ledger. */
+export type ClassParticularsInput = ClassFigures;
 
 export function classParticularsSchema(units: Units) {
   return z
