@@ -1,7 +1,7 @@
 import type { Browser, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { signInAs, signOut } from "../support/auth";
-import { BASE_URL, launchBrowser, screenshotPath } from "../support/browser";
+import { BASE_URL, keepEvidenceOnFailure, launchBrowser, screenshotPath } from "../support/browser";
 import { extractLinks, waitForMail } from "../support/mailbox";
 
 let browser: Browser;
@@ -20,6 +20,7 @@ beforeAll(async () => {
   // A 400 on a refused form is expected and logged by the browser as a failed resource.
   page.on("console", (m) => { if (m.type() === "error" && !m.text().startsWith("Failed to load resource")) errors.push(m.text()); });
 });
+beforeEach(keepEvidenceOnFailure("accounts", () => page));
 afterAll(async () => browser?.close());
 
 describe("a new owner makes an account", () => {

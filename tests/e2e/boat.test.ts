@@ -3,9 +3,9 @@
 // far to move a battery to level her, sizes the cable for the new run, and reads a write-up that
 // shows the same kind of numbers.
 import type { Browser, BrowserContext, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { signInAs } from "../support/auth";
-import { BASE_URL, launchBrowser, screenshotPath } from "../support/browser";
+import { BASE_URL, keepEvidenceOnFailure, launchBrowser, screenshotPath } from "../support/browser";
 
 let browser: Browser;
 let context: BrowserContext;
@@ -20,6 +20,7 @@ beforeAll(async () => {
   page.on("console", (m) => { if (m.type() === "error" && !m.text().startsWith("Failed to load resource")) errors.push(m.text()); });
   page.on("response", (r) => { if (r.status() >= 500) errors.push(`${r.status()} ${r.url()}`); });
 });
+beforeEach(keepEvidenceOnFailure("boat", () => page));
 afterAll(async () => {
   await context?.close();
   await browser?.close();

@@ -1,7 +1,7 @@
 import pg from "pg";
 import type { Browser, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { BASE_URL, launchBrowser, screenshotPath } from "../support/browser";
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
+import { BASE_URL, keepEvidenceOnFailure, launchBrowser, screenshotPath } from "../support/browser";
 import { readSeedWriteups } from "../support/seed-files";
 
 let browser: Browser;
@@ -17,6 +17,7 @@ beforeAll(async () => {
   page.on("console", (m) => { if (m.type() === "error" && !m.text().startsWith("Failed to load resource")) errors.push(m.text()); });
   page.on("response", (r) => { if (r.status() >= 400 && r.request().resourceType() !== "document") errors.push(`${r.status()} ${r.url()}`); });
 });
+beforeEach(keepEvidenceOnFailure("browse", () => page));
 afterAll(async () => browser?.close());
 
 const published = readSeedWriteups()

@@ -1,9 +1,9 @@
 // A member comments on a published write-up and counts their boat, without the page reloading;
 // a visitor then sees both, and the hostile text in a comment stays text.
 import type { Browser, BrowserContext, Dialog, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { signInAs } from "../support/auth";
-import { BASE_URL, launchBrowser, screenshotPath } from "../support/browser";
+import { BASE_URL, keepEvidenceOnFailure, launchBrowser, screenshotPath } from "../support/browser";
 
 let browser: Browser;
 const errors: string[] = [];
@@ -40,6 +40,7 @@ afterAll(async () => browser?.close());
 describe("the conversation under a write-up", () => {
   let context: BrowserContext;
   let page: Page;
+  beforeEach(keepEvidenceOnFailure("conversation", () => page));
   beforeAll(async () => {
     context = await browser.newContext({ viewport: { width: 1200, height: 900 } });
     page = await context.newPage();

@@ -3,9 +3,9 @@ import os from "node:os";
 import path from "node:path";
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import sharp from "sharp";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { signInAs } from "../support/auth";
-import { BASE_URL, launchBrowser, screenshotPath } from "../support/browser";
+import { BASE_URL, keepEvidenceOnFailure, launchBrowser, screenshotPath } from "../support/browser";
 import { expectedUpright, hullRangeOf, mainForFit, readSeedSpaces } from "../support/seed-spaces";
 
 let browser: Browser;
@@ -28,6 +28,7 @@ const expected = expectedUpright({ lengthIn: 13, widthIn: 6 + 13 / 16, heightIn:
 describe("a new owner looking for room for a group 31 battery", () => {
   let context: BrowserContext;
   let page: Page;
+  beforeEach(keepEvidenceOnFailure("fit", () => page));
   beforeAll(async () => {
     context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     page = await context.newPage();

@@ -3,8 +3,8 @@
 // in it that must show as text.
 import pg from "pg";
 import type { Browser, BrowserContext, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { BASE_URL, launchBrowser, screenshotPath } from "../support/browser";
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
+import { BASE_URL, keepEvidenceOnFailure, launchBrowser, screenshotPath } from "../support/browser";
 
 let browser: Browser;
 const errors: string[] = [];
@@ -49,6 +49,7 @@ const resultTitles = (page: Page) => page.locator("main section[aria-labelledby^
 describe("with JavaScript", () => {
   let context: BrowserContext;
   let page: Page;
+  beforeEach(keepEvidenceOnFailure("search", () => page));
   beforeAll(async () => {
     context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     page = await context.newPage();
@@ -174,6 +175,7 @@ describe("with JavaScript", () => {
 describe("without JavaScript", () => {
   let context: BrowserContext;
   let page: Page;
+  beforeEach(keepEvidenceOnFailure("search", () => page));
   beforeAll(async () => {
     context = await browser.newContext({ viewport: { width: 1280, height: 900 }, javaScriptEnabled: false });
     page = await context.newPage();

@@ -3,9 +3,9 @@ import os from "node:os";
 import path from "node:path";
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import sharp from "sharp";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { signInAs, signOut } from "../support/auth";
-import { BASE_URL, launchBrowser, screenshotPath } from "../support/browser";
+import { BASE_URL, keepEvidenceOnFailure, launchBrowser, screenshotPath } from "../support/browser";
 import { waitForMail } from "../support/mailbox";
 
 let browser: Browser;
@@ -23,6 +23,7 @@ beforeAll(async () => {
   page.on("dialog", async (d) => { dialogs.push(d.message()); await d.dismiss(); });
   page.on("pageerror", (e) => errors.push(e.message));
 });
+beforeEach(keepEvidenceOnFailure("writeup-journey", () => page));
 afterAll(async () => browser?.close());
 
 async function photoFile(): Promise<string> {
@@ -85,6 +86,7 @@ describe("a write-up from draft to publication", () => {
     await page.getByRole("link", { name: "Your write-ups" }).click();
     await page.getByRole("link", { name: TITLE }).click();
     await page.getByText("Please say what sealant you used").waitFor();
+    await page.waitForSelector("form[novalidate]", { state: "attached" });
     const body = page.getByLabel("The write-up");
     await body.fill(`${await body.inputValue()}\n\nI used a polyurethane sealant; the tray drains into the sink through a 3/8 in hose.`);
     await page.getByRole("button", { name: "Send for review" }).click();
