@@ -1,6 +1,7 @@
 // The database schema. Lengths are stored in millimetres, weights in kilograms
 // (app/domain/units.ts converts what people type and what they read).
 import { sql } from "drizzle-orm";
+import type { DigestSnapshot } from "../domain/digest";
 import {
   boolean, check, customType, date, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, serial,
   text, timestamp, uniqueIndex,
@@ -467,3 +468,49 @@ export const searchVocabulary = pgTable("search_vocabulary", {
   word: text("word").primaryKey(),
   documents: integer("documents").notNull(),
 }, (t) => [index("search_vocabulary_trgm_idx").using("gin", t.word.op("gin_trgm_ops"))]);
+
+// --- The yearly digest (app/domain/digest.ts, app/models/digests.server.ts) ---
+// A secretary compiles a draft edition for a year from the write-ups published that year, orders
+// and leaves out entries, then issues it: the issued edition's content is frozen in `content` and
+// never changes; a correction is a new edition of the same year with a note.
+
+export const digestStatusEnum = pgEnum("digest_status", ["draft", "issued"]);
+
+export const digestEditions = pgTable("digest_editions", {
+  id: serial("id").primaryKey(),
+  year: integer("year").notNull(),
+  edition: integer("edition").notNull(),
+  status: digestStatusEnum("status").notNull().default("draft"),
+  editorLetter: text("editor_letter").notNull().default(""),
+  correctionNote: text("correction_note").notNull().default(""),
+  compiledBy: integer("compiled_by").references(() => users.id, { onDelete: "set null" }),
+  createdAt: createdAt(),
+  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  issuedAt: timestamp("issued_at", { withTimezone: true }),
+  issuedBy: integer("issued_by").references(() => users.id, { onDelete: "set null" }),
+  // The frozen edition (set once, when issued).
+  content: jsonb("content").$type<DigestSnapshot>(),
+  // The PDF, once built: its object key in the photo store's bucket.
+  pdfKey: text("pdf_key"),
+  pdfBuiltAt: timestamp("pdf_built_at", { withTimezone: true }),
+  // How many members the e-mail was queued for (null: not sent).
+  mailedCount: integer("mailed_count"),
+}, (t) => [
+  uniqueIndex("digest_editions_year_edition_idx").on(t.year, t.edition),
+  uniqueIndex("digest_editions_one_draft_idx").on(t.year).where(sql`status = 'draft'`),
+  check("digest_editions_year_range", sql`${t.year} between 1971 and 2200 and ${t.edition} >= 1`),
+  check("digest_editions_issued_frozen", sql`${t.status} = 'draft' or (${t.content} is not null and ${t.issuedAt} is not null)`),
+]);
+
+/** A draft's entries: every write-up published in the year, in order, left out or not. */
+export const digestEntries = pgTable("digest_entries", {
+  editionId: integer("edition_id").notNull().references(() => digestEditions.id, { onDelete: "cascade" }),
+  writeupId: integer("writeup_id").notNull().references(() => writeups.id, { onDelete: "cascade" }),
+  // The system it is listed under (its first system by the taxonomy's order; "" if it has none).
+  sectionSlug: text("section_slug").notNull().default(""),
+  position: integer("position").notNull(),
+  included: boolean("included").notNull().default(true),
+}, (t) => [
+  primaryKey({ columns: [t.editionId, t.writeupId] }),
+  index("digest_entries_order_idx").on(t.editionId, t.position),
+]);
