@@ -78,8 +78,25 @@ describe("sanitising hostile input (OWASP XSS Filter Evasion Cheat Sheet)", () =
 });
 
 describe("plain text for search", () => {
-  it("keeps words, drops markup, separates blocks", () => {
+  // Search needs the words as written with whitespace between blocks and cells (common practice:
+  // PostgreSQL's to_tsvector splits words on whitespace and punctuation, so "metricimperial" would be one word).
+  it("keeps words, drops markup, separates blocks and list items", () => {
     const { text } = renderMarkdown("## Fitting the box\n\nCut **plywood** to [size](/x).\n\n- one\n- two");
-    expect(text).toBe("Fitting the box\nCut plywood to size.\nonetwo");
+    expect(text).toBe("Fitting the box\nCut plywood to size.\none\ntwo");
+  });
+
+  it("separates table cells by a space and rows by a new line", () => {
+    const { text } = renderMarkdown("| metric | imperial |\n|---|---|\n| 610 mm | 24 in |\n\nPort side only.");
+    expect(text).toBe("metric imperial\n610 mm 24 in\nPort side only.");
+    expect(text).not.toMatch(/metricimperial|imperial610|inPort/);
+  });
+
+  it("keeps block quotes, code and nested lists apart, and image alt text", () => {
+    const { text } = renderMarkdown("> A quote\n\n```\nfuse 40 A\n```\n\n1. first\n   - inner\n2. second\n\n![the box](/media/x.webp)");
+    expect(text.split("\n")).toEqual(["A quote", "fuse 40 A", "first", "inner", "second", "the box"]);
+  });
+
+  it("keeps a hard line break as a break and leaves raw HTML out", () => {
+    expect(renderMarkdown("one  \ntwo <b>three</b>").text).toBe("one\ntwo three");
   });
 });
