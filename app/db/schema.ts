@@ -3,7 +3,7 @@
 import { sql } from "drizzle-orm";
 import type { DigestSnapshot } from "../domain/digest";
 import {
-  boolean, check, customType, date, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, serial,
+  boolean, check, customType, date, doublePrecision, foreignKey, index, integer, jsonb, pgEnum, pgTable, primaryKey, serial,
   text, timestamp, uniqueIndex,
 } from "drizzle-orm/pg-core";
 
@@ -172,7 +172,8 @@ export const spaceSections = pgTable("space_sections", {
     ${FIT_H},
     ${FIT_L} * ${FIT_W} * ${FIT_H}]::float8[])`)),
 }, (t) => [
-  index("space_sections_space_idx").on(t.spaceId, t.position),
+  // Unique: measurements name their section by (space, position).
+  uniqueIndex("space_sections_space_idx").on(t.spaceId, t.position),
   index("space_sections_fit_any_idx").using("gist", t.fitAny),
   index("space_sections_fit_upright_idx").using("gist", t.fitUpright),
 ]);
@@ -180,6 +181,8 @@ export const spaceSections = pgTable("space_sections", {
 export const spaceMeasurements = pgTable("space_measurements", {
   id: serial("id").primaryKey(),
   spaceId: integer("space_id").notNull().references(() => spaces.id, { onDelete: "cascade" }),
+  // Which section was measured (its position; 0 is the main one).
+  section: integer("section").notNull().default(0),
   userId: integer("user_id").notNull().references(() => users.id),
   hullNumber: integer("hull_number").notNull(),
   method: measureMethodEnum("method").notNull(),
@@ -189,7 +192,47 @@ export const spaceMeasurements = pgTable("space_measurements", {
   heightMm: doublePrecision("height_mm").notNull(),
   photoId: integer("photo_id").references(() => photos.id, { onDelete: "set null" }),
   createdAt: createdAt(),
-}, (t) => [index("space_measurements_space_idx").on(t.spaceId)]);
+  // The last change after it was added, and by whom (its author or a moderator).
+  updatedAt: timestamp("updated_at", { withTimezone: true }),
+  updatedBy: integer("updated_by").references(() => users.id, { onDelete: "set null" }),
+}, (t) => [
+  index("space_measurements_space_idx").on(t.spaceId),
+  foreignKey({
+    name: "space_measurements_section_fk",
+    columns: [t.spaceId, t.section],
+    foreignColumns: [spaceSections.spaceId, spaceSections.position],
+  }).onDelete("cascade").onUpdate("cascade"),
+]);
+
+export const measurementChangeEnum = pgEnum("measurement_change", ["edited", "deleted"]);
+
+/** Who changed or removed a measurement, when, and what it said before (and after). */
+export const measurementChanges = pgTable("measurement_changes", {
+  id: serial("id").primaryKey(),
+  spaceId: integer("space_id").notNull().references(() => spaces.id, { onDelete: "cascade" }),
+  // No reference: the measurement may be gone.
+  measurementId: integer("measurement_id").notNull(),
+  kind: measurementChangeEnum("kind").notNull(),
+  changedBy: integer("changed_by").references(() => users.id, { onDelete: "set null" }),
+  // The member who took the measurement.
+  takenBy: integer("taken_by").references(() => users.id, { onDelete: "set null" }),
+  before: jsonb("before").$type<MeasurementRecord>().notNull(),
+  after: jsonb("after").$type<MeasurementRecord>(),
+  reason: text("reason").notNull().default(""),
+  changedAt: timestamp("changed_at", { withTimezone: true }).notNull().defaultNow(),
+}, (t) => [index("measurement_changes_space_idx").on(t.spaceId, t.changedAt)]);
+
+/** A measurement as kept in its history (millimetres). */
+export type MeasurementRecord = {
+  section: number;
+  hullNumber: number;
+  method: string;
+  measuredOn: string;
+  lengthMm: number;
+  widthMm: number;
+  heightMm: number;
+  photoId: number | null;
+};
 
 export const writeupSpaces = pgTable("writeup_spaces", {
   writeupId: integer("writeup_id").notNull().references(() => writeups.id, { onDelete: "cascade" }),
