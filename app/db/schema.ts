@@ -84,6 +84,9 @@ export const writeups = pgTable("writeups", {
   updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   // The names of the write-up's systems and zones, kept by triggers (drizzle/*_search_vocabulary.sql).
   searchTags: text("search_tags").notNull().default(""),
+  // The same as filter words ("system:electrical", "zone:lazarette"), kept by the same triggers
+  // (drizzle/*_search_filters.sql): a filter reads the GIN index beside the words' one.
+  searchFilters: text("search_filters").array().notNull().default(sql`'{}'::text[]`),
   search: tsvector("search").generatedAlwaysAs(sql`
     setweight(to_tsvector('english', coalesce(title, '')), 'A') ||
     setweight(to_tsvector('english', coalesce(search_tags, '')), 'B') ||
@@ -91,6 +94,10 @@ export const writeups = pgTable("writeups", {
     setweight(to_tsvector('english', coalesce(body_text, '')), 'C')`),
 }, (t) => [
   index("writeups_search_idx").using("gin", t.search).where(sql`status = 'published'`),
+  index("writeups_search_filters_idx").using("gin", t.searchFilters).where(sql`status = 'published'`),
+  // The titles alone, so that a search that matches many write-ups ranks those with its words in
+  // the title among the ones it reads (app/models/search.server.ts).
+  index("writeups_title_search_idx").using("gin", sql`to_tsvector('english', ${t.title})`).where(sql`status = 'published'`),
   index("writeups_status_published_idx").on(t.status, t.publishedAt),
   check("writeups_hull_range", sql`${t.hullFrom} between 1 and ${t.hullTo} and ${t.hullTo} <= 612`),
 ]);
@@ -137,7 +144,7 @@ export const spaces = pgTable("spaces", {
     setweight(to_tsvector('english', coalesce(name, '')), 'A') ||
     setweight(to_tsvector('english', replace(zone_slug, '-', ' ')), 'B') ||
     setweight(to_tsvector('english', coalesce(obstructions, '')), 'C')`),
-}, (t) => [index("spaces_search_idx").using("gin", t.search)]);
+}, (t) => [index("spaces_search_idx").using("gin", t.search), index("spaces_zone_idx").on(t.zoneSlug)]);
 
 // The size of a section as the fit uses it (SQL): the consensus where there is one.
 const FIT_L = "coalesce(consensus_length_mm, length_mm)";
