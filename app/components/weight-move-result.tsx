@@ -147,10 +147,13 @@ export function WeightMoveResult({ input, unit, title, headingLevel = 3 }: { inp
             ? ` Raising or lowering the weight moves the centre of gravity: GM changes by w·Δh/Δ (${formatLength(Math.abs(inchesToMm((r.before.gmFt - r.after.gmFt) * 12)), unit)}).`
             : ""}
         </p>
-        <ul className="mt-2 list-disc space-y-1 pl-5">
+      </details>
+      <aside className="rounded-md border-l-4 border-bootstripe-600 bg-bootstripe-50 p-3 text-step--1">
+        <h4 className="font-sans font-semibold text-bootstripe-800">Weight and stability</h4>
+        <ul className="mt-1 list-disc space-y-1 pl-5">
           {STABILITY_CAUTIONS.map((t) => <li key={t}>{t}</li>)}
         </ul>
-      </details>
+      </aside>
     </section>
   );
 }

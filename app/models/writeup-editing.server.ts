@@ -8,6 +8,8 @@ import { parseWeight } from "~/domain/units";
 import { canEdit, type Decision, type RevisionState, transition } from "~/domain/writeup-lifecycle";
 export { CHECKLIST } from "~/domain/writeup-lifecycle";
 import { slugify, type WriteupFormValue } from "~/domain/writeup-form";
+import { readCalculation, type Calculation } from "~/domain/calculations";
+import { addWriteupCalculation, listWriteupCalculations, removeWriteupCalculation } from "./calculations.server";
 import { enqueueEmail } from "./outbox.server";
 
 type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
@@ -305,3 +307,63 @@ export async function addSystem(db: Db, slug: string, name: string, description:
   return inserted.length > 0;
 }
 
+
+// ---------------------------------------------------------------------------------------------
+// Numbers for readers: calculations the author attaches to a write-up (app/domain/calculations.ts).
+
+/** The states in which the author may change a write-up's numbers: those in which the editor lets them edit. */
+function numbersOpen(state: RevisionState): boolean {
+  return canEdit(state) || state === "published" || state === "declined";
+}
+
+/** The author's write-ups that can take numbers now (for "attach to a write-up of mine" on the tools). */
+export async function listWriteupsOpenForNumbers(db: Db, authorId: number): Promise<{ id: number; title: string }[]> {
+  const mine = await listMyWriteups(db, authorId);
+  return mine.filter((w) => numbersOpen(w.latestStatus)).map((w) => ({ id: w.id, title: w.latestTitle ?? w.title }));
+}
+
+/**
+ * The author's write-up, while its numbers may change: the same states in which the editor lets
+ * them edit (a draft, one sent back, a published or declined one). Not while the moderators have it,
+ * nor once withdrawn. Anyone else gets "no such write-up" (404), as in the editor.
+ */
+export async function requireAuthorsWriteupForNumbers(tx: Tx | Db, writeupId: number, userId: number) {
+  const [w] = await tx.select({ id: s.writeups.id, authorId: s.writeups.authorId }).from(s.writeups).where(eq(s.writeups.id, writeupId));
+  if (!w || w.authorId !== userId) throw new EditingError("No such write-up of yours.", 404);
+  const latest = await workingRevision(tx, writeupId);
+  const state = latest?.status as RevisionState | undefined;
+  if (!state || !numbersOpen(state)) {
+    throw new EditingError(
+      state === "awaiting_review"
+        ? "This write-up is with the moderators; you can change its numbers once they have replied."
+        : "This write-up can no longer be changed.",
+      409,
+    );
+  }
+}
+
+/** Attaches a calculation to the author's write-up; its input is checked again before it is stored. */
+export async function attachCalculation(
+  db: Db,
+  input: { writeupId: number; userId: number; calc: Calculation; title: string },
+): Promise<number> {
+  const checked = readCalculation(input.calc.kind, input.calc.input);
+  if (!checked) throw new EditingError("These figures do not make a calculation we can show.");
+  return db.transaction(async (tx) => {
+    await requireAuthorsWriteupForNumbers(tx, input.writeupId, input.userId);
+    const count = (await listWriteupCalculations(tx, input.writeupId)).length;
+    if (count >= MAX_CALCULATIONS) throw new EditingError(`A write-up carries at most ${MAX_CALCULATIONS} sets of numbers.`);
+    return addWriteupCalculation(tx, input.writeupId, checked, { title: input.title.slice(0, 120), userId: input.userId });
+  });
+}
+
+export const MAX_CALCULATIONS = 12;
+
+/** Removes one of the write-up's calculations; only its author, and only one of this write-up's. */
+export async function detachCalculation(db: Db, input: { writeupId: number; userId: number; calculationId: number }): Promise<void> {
+  await db.transaction(async (tx) => {
+    await requireAuthorsWriteupForNumbers(tx, input.writeupId, input.userId);
+    const removed = await removeWriteupCalculation(tx, input.writeupId, input.calculationId);
+    if (!removed) throw new EditingError("Those numbers are not attached to this write-up.", 404);
+  });
+}

@@ -1,28 +1,42 @@
 import { getFormProps, getInputProps, getTextareaProps, useForm } from "@conform-to/react";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { useEffect, useRef, useState } from "react";
-import { data, Form, Link, useFetcher, useNavigation } from "react-router";
+import { data, Form, Link, useFetcher, useLocation, useNavigation } from "react-router";
 import type { Route } from "./+types/my.writeups.$id";
 import { CautionList } from "~/components/cautions";
 import { PhotoUploader } from "~/components/photo-uploader";
+import { WriteupNumbersEditor } from "~/components/writeup-numbers-editor";
 import { buttonClass, FieldError, FormMessage, inputClass, Notice, quietButtonClass, TextField } from "~/components/ui/field";
 import { db } from "~/db/index.server";
+import { firstErrors, unitsFor } from "~/domain/boat-forms";
+import { cableRunFormSchema, weightMoveFormSchema } from "~/domain/calculation-forms";
 import { cautionsFor } from "~/domain/cautions";
-import { formatWeight } from "~/domain/units";
+import { formatGm } from "~/domain/ledger";
+import { formatWeight, type LengthUnit } from "~/domain/units";
 import { canEdit, DECISION_LABELS, type RevisionState, STATE_LABELS } from "~/domain/writeup-lifecycle";
 import { writeupFormSchema } from "~/domain/writeup-form";
 import { writeupWarnings } from "~/domain/writeup-checks";
+import { getClassParticulars } from "~/models/boats.server";
+import { listWriteupCalculations } from "~/models/calculations.server";
 import {
-  EditingError, getForEditing, listSystemAndZoneChoices, saveDraft, submitForReview, withdraw,
+  attachCalculation, detachCalculation, EditingError, getForEditing, listSystemAndZoneChoices, requireAuthorsWriteupForNumbers, saveDraft,
+  submitForReview, withdraw,
 } from "~/models/writeup-editing.server";
 import { listBoatsOf } from "~/models/users.server";
 import { readNotice, redirectWithNotice, requirePermission } from "~/services/session.server";
+import { readForm } from "~/services/form-body.server";
 
 export function meta() {
   return [{ title: "Write-up editor · Sistership" }];
 }
 
 const weightUnitOf = (units: "in" | "mm"): "lb" | "kg" => (units === "mm" ? "kg" : "lb");
+
+/**
+ * After a save of a new write-up or a send for review, the editor's address carries `?kept=<key>`:
+ * the copy this device kept under that key is now on the server, and the page clears it.
+ */
+const KEPT_PARAM = "kept";
 
 type PartValue = { name: string; quantity: string; weight: string; note: string };
 type EditorValue = {
@@ -40,15 +54,23 @@ function appliesToText(from: number, to: number): string {
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requirePermission(request, "writeup:write");
-  const [choices, boats, { notice, headers }] = await Promise.all([listSystemAndZoneChoices(db), listBoatsOf(db, user.id), readNotice(request)]);
+  const [choices, boats, { notice, headers }, particulars] = await Promise.all([
+    listSystemAndZoneChoices(db), listBoatsOf(db, user.id), readNotice(request), getClassParticulars(db),
+  ]);
   const weightUnit = weightUnitOf(user.units);
+  const unit: LengthUnit = user.units;
+  const classNote = particulars
+    ? `Worked out with the class figures${particulars.demo ? " (invented demo values)" : ""}: light displacement ${formatWeight(particulars.lightDisplacementKg, weightUnit)}, GM ${formatGm(particulars.gmMm, unit)}.`
+    : null;
+  const numbers = { unit, classNote, canAttachMove: particulars !== null };
   if (params.id === "new") {
     const defaultValue: EditorValue = { title: "", summary: "", body: "", systems: [], zones: [], appliesTo: "all", parts: [] };
     const decisions: DecisionView[] = [];
-    return data({ id: "new" as const, choices, weightUnit, notice, editable: true, state: "draft" as RevisionState, published: false, slug: null as string | null, decisions, updatedAt: null as string | null, boats: boats.map((b) => b.hullNumber), defaultValue }, { headers });
+    const calculations: Awaited<ReturnType<typeof listWriteupCalculations>> = [];
+    return data({ id: "new" as const, choices, weightUnit, notice, editable: true, state: "draft" as RevisionState, published: false, slug: null as string | null, decisions, updatedAt: null as string | null, boats: boats.map((b) => b.hullNumber), defaultValue, numbers, calculations }, { headers });
   }
   const id = Number(params.id);
-  const found = Number.isInteger(id) ? await getForEditing(db, id) : null;
+  const found = Number.isInteger(id) && id >= 1 && id <= 2_147_483_647 ? await getForEditing(db, id) : null;
   if (!found || found.writeup.authorId !== user.id) throw data("No such write-up of yours.", { status: 404 });
   const r = found.revision;
   const defaultValue: EditorValue = {
@@ -66,6 +88,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       updatedAt: r.updatedAt.toISOString() as string | null,
       decisions,
       defaultValue,
+      numbers,
+      calculations: await listWriteupCalculations(db, id),
     },
     { headers },
   );
@@ -73,11 +97,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 
 export async function action({ request, params }: Route.ActionArgs) {
   const user = await requirePermission(request, "writeup:write");
-  const formData = await request.formData();
+  const formData = await readForm(request);
   const intent = String(formData.get("intent") ?? "save");
   const writeupId = params.id === "new" ? null : Number(params.id);
-  if (writeupId !== null && !Number.isInteger(writeupId)) throw data("No such write-up.", { status: 404 });
+  if (writeupId !== null && !(Number.isInteger(writeupId) && writeupId >= 1 && writeupId <= 2_147_483_647)) throw data("No such write-up.", { status: 404 });
   try {
+    if (intent.startsWith("calc-")) return await numbersAction(formData, intent, writeupId, user);
     if (intent === "withdraw" && writeupId !== null) {
       await withdraw(db, writeupId, { id: user.id, isModerator: false });
       return redirectWithNotice(request, "/my/writeups", "The write-up is withdrawn.");
@@ -88,11 +113,13 @@ export async function action({ request, params }: Route.ActionArgs) {
     if (submission.status !== "success") return data({ result: submission.reply() }, { status: 400 });
     const boats = await listBoatsOf(db, user.id);
     const saved = await saveDraft(db, { authorId: user.id, writeupId, value: submission.value, weightUnit: weightUnitOf(user.units), boatId: boats[0]?.id ?? null });
+    // What this device kept is on the server now: the address tells the page to clear it.
+    const kept = `?${KEPT_PARAM}=${writeupId ?? "new"}`;
     if (intent === "submit") {
       await submitForReview(db, saved.writeupId, user.id);
-      return redirectWithNotice(request, `/my/writeups/${saved.writeupId}`, "Sent to the moderators. You will get an e-mail when they have read it.");
+      return redirectWithNotice(request, `/my/writeups/${saved.writeupId}${kept}`, "Sent to the moderators. You will get an e-mail when they have read it.");
     }
-    if (writeupId === null) return redirectWithNotice(request, `/my/writeups/${saved.writeupId}`, "Draft saved.");
+    if (writeupId === null) return redirectWithNotice(request, `/my/writeups/${saved.writeupId}${kept}`, "Draft saved.");
     return data({ result: submission.reply(), saved: true, savedAt: new Date().toISOString() });
   } catch (error) {
     if (error instanceof EditingError) return data({ result: undefined, error: error.message }, { status: error.status });
@@ -100,9 +127,40 @@ export async function action({ request, params }: Route.ActionArgs) {
   }
 }
 
+/** "Numbers for readers": check a cable run or a weight move, attach it, or remove one. */
+async function numbersAction(formData: FormData, intent: string, writeupId: number | null, user: { id: number; units: LengthUnit }) {
+  if (writeupId === null) return data({ error: "Save the draft first; then you can attach numbers to it." }, { status: 400 });
+  // Only the author, and only while the write-up is theirs to change: checked before anything is read.
+  await requireAuthorsWriteupForNumbers(db, writeupId, user.id);
+  if (intent === "calc-remove") {
+    const calculationId = Number(formData.get("calculationId"));
+    if (!Number.isInteger(calculationId)) return data({ error: "Which numbers?" }, { status: 400 });
+    await detachCalculation(db, { writeupId, userId: user.id, calculationId });
+    return { removed: calculationId };
+  }
+  const kind = intent === "calc-cable" ? ("cable-run" as const) : intent === "calc-move" ? ("weight-move" as const) : null;
+  if (!kind) return data({ error: "Unknown request." }, { status: 400 });
+  const units = unitsFor(user.units);
+  let schema;
+  if (kind === "cable-run") schema = cableRunFormSchema(units);
+  else {
+    const particulars = await getClassParticulars(db);
+    if (!particulars) return data({ error: "The class particulars are not set yet: a weight move cannot be worked out." }, { status: 409 });
+    schema = weightMoveFormSchema(units, particulars);
+  }
+  const values: Record<string, string> = {};
+  for (const [k, v] of formData.entries()) if (typeof v === "string") values[k] = v;
+  const parsed = schema.safeParse(values);
+  if (!parsed.success) return data({ kind, errors: firstErrors(parsed.error) }, { status: 400 });
+  if (formData.get("step") !== "attach") return { kind, preview: parsed.data };
+  const attached = await attachCalculation(db, { writeupId, userId: user.id, calc: parsed.data.calc, title: parsed.data.title });
+  return { kind, attached };
+}
+
 export default function WriteupEditor({ loaderData, actionData }: Route.ComponentProps) {
-  const { id, choices, weightUnit, notice, state, published, slug, decisions, defaultValue, editable } = loaderData;
+  const { id, choices, weightUnit, notice, state, published, slug, decisions, defaultValue, editable, numbers, calculations } = loaderData;
   const navigation = useNavigation();
+  const location = useLocation();
   const preview = useFetcher<{ html: string; warnings: { key: string; text: string }[] }>();
   const formRef = useRef<HTMLFormElement>(null);
   const storageKey = `sistership:writeup:${id}`;
@@ -127,6 +185,18 @@ export default function WriteupEditor({ loaderData, actionData }: Route.Componen
   const [pending, setPending] = useState<{ value: EditorValue; savedAt: string } | null>(null);
   useEffect(() => {
     try {
+      const kept = new URLSearchParams(location.search).get(KEPT_PARAM);
+      if (kept !== null) {
+        // Saved or sent for review: what this device kept (under "new" for a new write-up) is on the server.
+        window.localStorage.removeItem(`sistership:writeup:${/^(new|\d+)$/.test(kept) ? kept : id}`);
+        window.localStorage.removeItem(storageKey);
+        setPending(null);
+        // Drop the marker from the address, so that a later reload does not clear newer typing.
+        const url = new URL(window.location.href);
+        url.searchParams.delete(KEPT_PARAM);
+        window.history.replaceState(window.history.state, "", `${url.pathname}${url.search}${url.hash}`);
+        return;
+      }
       const raw = window.localStorage.getItem(storageKey);
       if (!raw) return;
       const stored = JSON.parse(raw) as { value: EditorValue; savedAt: string };
@@ -136,7 +206,7 @@ export default function WriteupEditor({ loaderData, actionData }: Route.Componen
     } catch {
       // Storage unavailable (private mode): nothing to restore.
     }
-  }, [storageKey]);
+  }, [storageKey, location.search]);
   useEffect(() => {
     if (actionData && "saved" in actionData && actionData.saved) {
       try { window.localStorage.removeItem(storageKey); } catch { /* nothing kept */ }
@@ -396,6 +466,18 @@ export default function WriteupEditor({ loaderData, actionData }: Route.Componen
           </div>
           <p className="text-step--1 text-ink-soft">Moderators read every write-up before the class sees it.</p>
         </Form>
+      )}
+      {editable && id !== "new" && (
+        <WriteupNumbersEditor
+          calculations={calculations}
+          unit={numbers.unit}
+          weightWord={weightUnit === "kg" ? "kilograms" : "pounds"}
+          classNote={numbers.classNote}
+          canAttachMove={numbers.canAttachMove}
+        />
+      )}
+      {editable && id === "new" && (
+        <p className="text-step--1 text-ink-soft">Numbers for readers (a cable run, a weight move) can be attached once the draft is saved.</p>
       )}
       {id !== "new" && state !== "withdrawn" && (
         <Form method="post" onSubmit={(e) => { if (!window.confirm("Withdraw this write-up? Readers will no longer see it.")) e.preventDefault(); }}>

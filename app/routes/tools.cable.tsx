@@ -1,13 +1,17 @@
-import { Form, Link } from "react-router";
+import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/tools.cable";
 import { CableRunResult } from "~/components/cable-run-result";
 import { buttonClass, FieldError, inputClass } from "~/components/ui/field";
 import { UnitToggle } from "~/components/unit-toggle";
-import { ALLOWED_DROPS, cableToolSchema, firstErrors, queryObject, SYSTEM_VOLTAGES, withRunUnit } from "~/domain/boat-forms";
+import { ALLOWED_DROPS, cableToolSchema, firstErrors, queryObject, SYSTEM_VOLTAGES, unitsFor, withRunUnit } from "~/domain/boat-forms";
+import { cableRunFormSchema } from "~/domain/calculation-forms";
 import type { CableRunStored } from "~/domain/calculations";
 import { DROP_CATEGORIES, INSULATION_RATINGS_C } from "~/domain/conductors";
+import { can } from "~/domain/permissions";
 import { MM_PER_FOOT, type LengthUnit } from "~/domain/units";
-import { requireUser } from "~/services/session.server";
+import { db } from "~/db/index.server";
+import { attachCalculation, EditingError, listWriteupsOpenForNumbers } from "~/models/writeup-editing.server";
+import { redirectWithNotice, requirePermission, requireUser } from "~/services/session.server";
 import { readerUnit } from "./reader-unit.server";
 
 const FIELDS = ["current", "length", "voltage", "drop", "insulation", "engineSpace", "label"] as const;
@@ -45,11 +49,34 @@ export async function loader({ request }: Route.LoaderArgs) {
       };
     } else errors = firstErrors(r.error);
   }
-  return { unit, form, errors, input };
+  // A member who writes can attach the answer to one of their write-ups (Numbers for readers).
+  const mine = input && can(user.roles, "writeup:write") ? await listWriteupsOpenForNumbers(db, user.id) : [];
+  return { unit, form, errors, input, mine };
 }
 
-export default function CableTool({ loaderData }: Route.ComponentProps) {
-  const { unit, form, errors, input } = loaderData;
+/** POST: attach the answer to a write-up of the member's own; the editor checks who may. */
+export async function action({ request }: Route.ActionArgs) {
+  const user = await requirePermission(request, "writeup:write");
+  const formData = await request.formData();
+  const values: Record<string, string> = {};
+  for (const [k, v] of formData.entries()) if (typeof v === "string") values[k] = v;
+  const writeupId = Number(values.writeupId);
+  if (!Number.isInteger(writeupId) || writeupId <= 0) return data({ attachErrors: { writeupId: "Choose one of your write-ups." } }, { status: 400 });
+  // The lengths come from the answer shown, in millimetres with their unit: the reader's unit does not matter.
+  const parsed = cableRunFormSchema(unitsFor(user.units)).safeParse(values);
+  if (!parsed.success) return data({ attachErrors: firstErrors(parsed.error) }, { status: 400 });
+  try {
+    await attachCalculation(db, { writeupId, userId: user.id, calc: parsed.data.calc, title: parsed.data.title });
+  } catch (error) {
+    if (error instanceof EditingError) return data({ attachErrors: { writeupId: error.message } }, { status: error.status });
+    throw error;
+  }
+  return redirectWithNotice(request, `/my/writeups/${writeupId}`, "The cable run is attached: readers see it under the write-up.");
+}
+
+export default function CableTool({ loaderData, actionData }: Route.ComponentProps) {
+  const { unit, form, errors, input, mine } = loaderData;
+  const attachErrors: Record<string, string> = actionData && "attachErrors" in actionData ? actionData.attachErrors : {};
   const field = (name: "current" | "length" | "label", label: string, hint: string, inputMode?: "decimal") => (
     <div>
       <label htmlFor={`cable-${name}`} className="block font-medium">{label}</label>
@@ -116,7 +143,33 @@ export default function CableTool({ loaderData }: Route.ComponentProps) {
       <section aria-labelledby="cable-answer" className="space-y-3">
         <h2 id="cable-answer" className="text-step-2 font-semibold">The answer</h2>
         {input ? (
-          <CableRunResult input={input} unit={unit} />
+          <>
+            <CableRunResult input={input} unit={unit} />
+            {mine.length > 0 && (
+              <Form method="post" className="space-y-3 rounded-lg bg-cloth-100 p-4" aria-label="Attach to a write-up of yours">
+                <p className="font-medium">Attach this to a write-up of yours, so that readers see the numbers</p>
+                {(["current", "voltage", "drop", "insulation"] as const).map((k) => <input key={k} type="hidden" name={k} value={form[k] ?? ""} />)}
+                <input type="hidden" name="length" value={`${input.oneWayLengthMm} mm`} />
+                {input.inEngineSpace && <input type="hidden" name="engineSpace" value="true" />}
+                <div className="grid gap-4 sm:grid-cols-2">
+                  <div>
+                    <label htmlFor="attach-writeup" className="block font-medium">Write-up</label>
+                    <select id="attach-writeup" name="writeupId" aria-invalid={attachErrors.writeupId ? true : undefined} className={`mt-1 ${inputClass}`}>
+                      {mine.map((w) => <option key={w.id} value={w.id}>{w.title}</option>)}
+                    </select>
+                    <FieldError id="attach-writeup-error" errors={attachErrors.writeupId ? [attachErrors.writeupId] : undefined} />
+                  </div>
+                  <div>
+                    <label htmlFor="attach-label" className="block font-medium">What the run feeds</label>
+                    <input id="attach-label" name="label" defaultValue={input.label} aria-invalid={attachErrors.label ? true : undefined} className={`mt-1 ${inputClass}`} />
+                    <FieldError id="attach-label-error" errors={attachErrors.label ? [attachErrors.label] : undefined} />
+                  </div>
+                </div>
+                {Object.entries(attachErrors).filter(([k]) => k !== "writeupId" && k !== "label").map(([k, m]) => <FieldError key={k} id={`attach-${k}-error`} errors={[m]} />)}
+                <button type="submit" className={buttonClass}>Attach to the write-up</button>
+              </Form>
+            )}
+          </>
         ) : (
           <p className="text-ink-soft">
             {Object.keys(errors).length ? "Correct the fields marked above." : "Enter the current and the run length."}
