@@ -1,5 +1,6 @@
 // The write-up editor keeps what is typed on the device: a reload without saving loses nothing
-// ("Put it back"), a refused submit keeps every field, and a successful send clears the kept copy.
+// ("Put it back"), a refused submit keeps every field, a send lost on the way can be put back after
+// a reload, and a successful send clears the kept copy.
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { signInAs } from "../support/auth";
@@ -58,10 +59,27 @@ describe("typed text survives", () => {
     await page.screenshot({ path: screenshotPath("editor-drafts-refused"), fullPage: true });
   });
 
-  it("a successful send for review clears the copy kept on the device", async () => {
+  it("a send that never reaches the server: after a reload everything can be put back", async () => {
     await page.getByLabel("Summary").fill("A switch panel for the bilge pump, with its own fuse.");
     await page.getByLabel("Electrical").check();
     await page.waitForFunction((k) => window.localStorage.getItem(k)?.includes("its own fuse") ?? false, NEW_KEY);
+    const lost = (url: URL) => url.pathname.startsWith("/my/writeups/new");
+    await page.route(lost, (route) => (route.request().method() === "POST" ? route.abort("internetdisconnected") : route.continue()));
+    const failed = page.waitForEvent("requestfailed");
+    await page.getByRole("button", { name: "Send for review" }).click();
+    await failed;
+    await page.unroute(lost);
+
+    await page.reload();
+    await editorReady("A new write-up");
+    await page.getByRole("button", { name: "Put it back" }).click();
+    expect(await page.getByLabel("Title").inputValue()).toBe(TITLE);
+    expect(await page.getByLabel("Summary").inputValue()).toBe("A switch panel for the bilge pump, with its own fuse.");
+    expect(await page.getByLabel("The write-up").inputValue()).toBe(BODY);
+    expect(await page.getByLabel("Electrical").isChecked()).toBe(true);
+  });
+
+  it("a successful send for review clears the copy kept on the device", async () => {
     await page.getByRole("button", { name: "Send for review" }).click();
     await page.getByText("Sent to the moderators").waitFor();
     const id = /\/my\/writeups\/(\d+)/.exec(page.url())?.[1];
