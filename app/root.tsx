@@ -18,7 +18,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   return {
     className: CLASS_NAME,
     query: url.pathname === "/search" ? (url.searchParams.get("q") ?? "") : "",
-    user: user ? { displayName: user.displayName, isAdmin: user.roles.includes("admin"), canReview: can(user.roles, "writeup:review") } : null,
+    user: user ? { displayName: user.displayName, isAdmin: user.roles.includes("admin"), canReview: can(user.roles, "writeup:review"), canCompile: can(user.roles, "digest:compile") } : null,
   };
 }
 
@@ -36,6 +36,15 @@ export function Layout({ children }: { children: React.ReactNode }) {
       </head>
       <body>
         <SiteHeader className={data?.className ?? CLASS_NAME} query={data?.query ?? ""} user={data?.user ?? null} />
+        {data?.user?.canCompile && (
+          <nav aria-label="Class secretary" className="no-print border-b border-deep-100 bg-deep-50">
+            <div className="mx-auto flex max-w-5xl items-center gap-4 px-4 py-1.5 text-step--1 sm:px-6">
+              <span className="text-ink-soft">Class secretary</span>
+              <Link to="/secretary/digest" className="font-medium">Yearly digest</Link>
+              <Link to="/digest" className="text-ink-soft">Archive</Link>
+            </div>
+          </nav>
+        )}
         <main id="main" className="mx-auto w-full max-w-5xl flex-1 px-4 py-8 sm:px-6">
           {children}
         </main>

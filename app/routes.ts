@@ -55,5 +55,14 @@ export default [
   route("api/heel", "routes/api.heel.ts"),
   route("api/cable", "routes/api.cable.ts"),
 
+  // The yearly digest: the public archive, the unsubscribe link, and the secretary's pages
+  route("digest", "routes/digest.tsx"),
+  route("digest/unsubscribe", "routes/digest.unsubscribe.tsx"),
+  route("digest/:year", "routes/digest.$year.tsx"),
+  route("digest/:year/pdf", "routes/digest.$year.pdf.ts"),
+  route("secretary/digest", "routes/secretary.digest.tsx"),
+  route("secretary/digest/:year", "routes/secretary.digest.$year.tsx"),
+  route("secretary/digest/:year/preview", "routes/secretary.digest.$year.preview.tsx"),
+
   route("*", "routes/not-found.tsx"),
 ] satisfies RouteConfig;

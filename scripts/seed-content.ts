@@ -43,6 +43,8 @@ const memberSchema = z.object({
   units: z.enum(["in", "mm"]).default("in"),
   roles: z.array(z.enum(["member", "moderator", "secretary", "admin"])).default(["member"]),
   digest: z.boolean().default(true),
+  // When the account was opened (the yearly digest counts the year's new members by it).
+  joined: isoDate.optional(),
   boats: z.array(z.object({ hull: z.number().int().min(1).max(612), name: z.string().optional() })).default([]),
 });
 
@@ -145,9 +147,9 @@ export async function seedDemo(db: Db, dir: string): Promise<SeedCounts> {
     const boatIds = new Map<number, number>();
     for (const m of members) {
       const email = m.email.toLowerCase();
-      const values = { email, displayName: m.displayName, creditAs: m.credit ?? null, units: m.units, digestOptIn: m.digest, emailVerifiedAt: new Date("2024-01-01T00:00:00Z"), passwordHash: demoHash };
+      const values = { email, displayName: m.displayName, creditAs: m.credit ?? null, units: m.units, digestOptIn: m.digest, emailVerifiedAt: new Date("2024-01-01T00:00:00Z"), passwordHash: demoHash, ...(m.joined ? { createdAt: m.joined } : {}) };
       const [row] = await tx.insert(s.users).values(values)
-        .onConflictDoUpdate({ target: s.users.email, set: { displayName: values.displayName, creditAs: values.creditAs, units: values.units, digestOptIn: values.digestOptIn } })
+        .onConflictDoUpdate({ target: s.users.email, set: { displayName: values.displayName, creditAs: values.creditAs, units: values.units, digestOptIn: values.digestOptIn, ...(m.joined ? { createdAt: m.joined } : {}) } })
         .returning({ id: s.users.id });
       userIds.set(email, row.id);
       for (const role of new Set(["member", ...m.roles] as const)) {
