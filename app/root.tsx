@@ -7,10 +7,11 @@ import { useNonce } from "./components/nonce";
 import { SiteFooter, SiteHeader } from "./components/site-chrome";
 import { CLASS_NAME } from "./domain/hulls";
 import { can } from "./domain/permissions";
+import { refuseUnreadableAddress } from "./services/form-body.server";
 import { originCheck } from "./services/origin-check.server";
 import { getUser } from "./services/session.server";
 
-export const middleware: Route.MiddlewareFunction[] = [originCheck];
+export const middleware: Route.MiddlewareFunction[] = [originCheck, refuseUnreadableAddress];
 
 export async function loader({ request }: Route.LoaderArgs) {
   const url = new URL(request.url);

@@ -14,6 +14,7 @@ import { getUserById, leaveBoat, listBoatsOf, registerBoat, updateProfile } from
 import { env } from "~/services/env.server";
 import { kickOutbox } from "~/services/outbox-worker.server";
 import { currentSessionId, readNotice, redirectWithNotice, requireUser } from "~/services/session.server";
+import { readForm } from "~/services/form-body.server";
 
 export function meta() {
   return [{ title: "Your account · Sistership" }];
@@ -43,7 +44,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export async function action({ request }: Route.ActionArgs) {
   const user = await requireUser(request);
-  const formData = await request.formData();
+  const formData = await readForm(request);
   const intent = formData.get("intent");
   switch (intent) {
     case "profile": {

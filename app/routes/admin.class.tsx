@@ -12,6 +12,7 @@ import { formatLength, formatWeight, kgToPounds, MM_PER_FOOT, type LengthUnit } 
 import { getClassParticulars, listStandardItems, setClassParticulars } from "~/models/boats.server";
 import { readNotice, redirectWithNotice, requirePermission } from "~/services/session.server";
 import { readerUnit } from "./reader-unit.server";
+import { readForm } from "~/services/form-body.server";
 
 export function meta() {
   return [{ title: `Class particulars · ${CLASS_NAME} · Sistership` }];
@@ -66,7 +67,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export async function action({ request }: Route.ActionArgs) {
   const user = await requirePermission(request, "class:configure");
-  const formData = await request.formData();
+  const formData = await readForm(request);
   const units = unitsFor(unitOf(formData.get("unit")));
   const submission = parseWithZod(formData, { schema: classParticularsSchema(units) });
   if (submission.status !== "success") return data({ result: submission.reply() }, { status: 400 });

@@ -9,6 +9,7 @@ import { systemFieldsSchema, systemSchema, systemSlugFrom } from "~/domain/conve
 import { addSystem } from "~/models/writeup-editing.server";
 import { listSystemsWithCounts } from "~/models/writeups.server";
 import { readNotice, redirectWithNotice, requirePermission } from "~/services/session.server";
+import { readForm } from "~/services/form-body.server";
 
 export function meta() {
   return [{ title: "Boat systems · Sistership" }];
@@ -26,7 +27,7 @@ const sameName = (a: string, b: string) =>
 
 export async function action({ request }: Route.ActionArgs) {
   await requirePermission(request, "tag:manage");
-  const submission = parseWithZod(await request.formData(), { schema: systemSchema });
+  const submission = parseWithZod(await readForm(request), { schema: systemSchema });
   if (submission.status !== "success") return data({ result: submission.reply() }, { status: 400 });
   const { name, slug, description } = submission.value;
   const existing = await listSystemsWithCounts(db);

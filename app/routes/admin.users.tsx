@@ -7,6 +7,7 @@ import { rolesSchema } from "~/domain/account-forms";
 import { isRole, ROLE_LABELS, ROLES, type Role } from "~/domain/permissions";
 import { countAdmins, listUsers, setRoles } from "~/models/users.server";
 import { readNotice, redirectWithNotice, requirePermission } from "~/services/session.server";
+import { readForm } from "~/services/form-body.server";
 
 export function meta() {
   return [{ title: "Members and roles · Sistership" }];
@@ -25,7 +26,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export async function action({ request }: Route.ActionArgs) {
   const admin = await requirePermission(request, "user:manage");
-  const submission = parseWithZod(await request.formData(), { schema: rolesSchema });
+  const submission = parseWithZod(await readForm(request), { schema: rolesSchema });
   if (submission.status !== "success") return data({ error: "Choose roles from the list." }, { status: 400 });
   const { userId, roles } = submission.value;
   if (userId === admin.id && !roles.includes("admin") && (await countAdmins(db)) <= 1) {

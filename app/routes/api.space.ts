@@ -9,7 +9,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const unit = readApiUnit(new URL(request.url).searchParams);
   if (!unit) return badParameter("unit", 'unit: use "in" or "mm".');
   const key = params.id;
-  if (!/^(\d{1,9}|[a-z0-9-]{1,100})$/.test(key)) return badParameter("id", "id: a space's number or its slug.");
+  if (!/^(\d{1,9}|(?!\d+$)[a-z0-9-]{1,100})$/.test(key)) return badParameter("id", "id: a space's number or its slug.");
   const space = await getSpace(db, /^\d+$/.test(key) ? Number(key) : key);
   if (!space) return notFound(`No space ${key}.`);
   const outliers = space.consensus;

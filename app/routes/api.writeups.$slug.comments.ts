@@ -8,6 +8,7 @@ import { hitLimit, LIMITS } from "~/models/rate-limits.server";
 import { getUser, redirectWithNotice } from "~/services/session.server";
 import { notFound } from "./api-errors.server";
 import { canModerateComments, fromDocument, json, redirectWithDraft, signInPath, writeupPath } from "./conversation.server";
+import { readForm } from "~/services/form-body.server";
 
 // GET /api/writeups/:slug/comments: the comments of a published write-up, oldest first.
 export async function loader({ params }: Route.LoaderArgs) {
@@ -35,7 +36,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     if (document) return redirect(signInPath(writeup.slug, "comment-form"));
     return json({ error: "sign-in-needed", message: "Sign in to comment." }, 401);
   }
-  const formData = await request.formData();
+  const formData = await readForm(request);
 
   if (formData.get("intent") === "delete") {
     const submission = parseWithZod(formData, { schema: deleteCommentSchema });

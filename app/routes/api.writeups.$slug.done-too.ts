@@ -8,6 +8,7 @@ import { doneTooSummary, ownsHull, recordDoneToo, takeBackDoneToo } from "~/mode
 import { getUser, redirectWithNotice } from "~/services/session.server";
 import { notFound } from "./api-errors.server";
 import { fromDocument, json, signInPath, writeupPath } from "./conversation.server";
+import { readForm } from "~/services/form-body.server";
 
 function summaryJson(summary: Awaited<ReturnType<typeof doneTooSummary>>) {
   return { count: summary.count, hulls: summary.hulls.map(({ hullNumber, boatName, isAuthors }) => ({ hullNumber, boatName, isAuthors })) };
@@ -40,7 +41,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     return json({ ...body, ...summaryJson(await doneTooSummary(db, writeup)) }, status);
   };
 
-  const submission = parseWithZod(await request.formData(), { schema: doneTooSchema });
+  const submission = parseWithZod(await readForm(request), { schema: doneTooSchema });
   if (submission.status !== "success") {
     const [field, messages] = Object.entries(submission.error ?? {}).find(([, m]) => m?.length) ?? ["hullNumber", ["Choose one of your boats."]];
     return answer(400, { error: "bad-parameter", parameter: field, message: messages?.[0] ?? "Choose one of your boats." });

@@ -59,6 +59,7 @@ import {
 import { listSpaces } from "~/models/spaces.server";
 import { readNotice, redirectWithNotice, requireUser } from "~/services/session.server";
 import { readerUnit } from "./reader-unit.server";
+import { readForm } from "~/services/form-body.server";
 
 /** Before the class particulars are set, positions are checked against these (10 m, 2 m). */
 const FALLBACK_LIMITS: BoatLimits = { maxAftMm: 10_000, halfBeamMm: 2_000 };
@@ -184,7 +185,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const boat = await getBoatByHull(db, hull);
   if (!boat) throw data(`Hull ${hull} is not registered in Sistership.`, { status: 404 });
   if (!isOwner(boat, user.id)) throw data("Only the boat's owners can change its ledger.", { status: 403 });
-  const formData = await request.formData();
+  const formData = await readForm(request);
   const unit = unitOf(formData.get("unit"));
   const units = unitsFor(unit);
   const intent = String(formData.get("intent") ?? "");
@@ -735,7 +736,7 @@ function LevelSection({ loaderData, heelDeg }: { loaderData: Loader; heelDeg: nu
                       )}
                     </td>
                     <td className="py-2 text-right">
-                      {p.withinBeam && <Link to={tryLink(p.entryId, p.newOffCentreMm)} preventScrollReset aria-label={`Try moving ${p.name}`}>Try it</Link>}
+                      {p.withinBeam && <Link to={tryLink(p.entryId, p.newOffCentreMm)} preventScrollReset aria-label={`Try it: move ${p.name}`}>Try it</Link>}
                     </td>
                   </tr>
                 ))}

@@ -11,6 +11,7 @@ import { issueToken } from "~/models/tokens.server";
 import { findUserByEmail } from "~/models/users.server";
 import { env } from "~/services/env.server";
 import { kickOutbox } from "~/services/outbox-worker.server";
+import { readForm } from "~/services/form-body.server";
 
 export function meta() {
   return [{ title: "Reset your password · Sistership" }];
@@ -20,7 +21,7 @@ export function meta() {
 export const RESET_SENT = "If an account uses that address, we have sent it a link to choose a new password. It works once, for an hour.";
 
 export async function action({ request }: Route.ActionArgs) {
-  const submission = parseWithZod(await request.formData(), { schema: forgotPasswordSchema });
+  const submission = parseWithZod(await readForm(request), { schema: forgotPasswordSchema });
   if (submission.status !== "success") return data({ result: submission.reply(), sent: false }, { status: 400 });
   const { email } = submission.value;
   for (const [key, limit] of [

@@ -13,6 +13,7 @@ import { formatWeight, type LengthUnit } from "~/domain/units";
 import { addItem, listItems } from "~/models/items.server";
 import { getUser, readNotice, redirectWithNotice, requirePermission } from "~/services/session.server";
 import { readerUnit } from "./reader-unit.server";
+import { readForm } from "~/services/form-body.server";
 
 export function meta() {
   return [
@@ -48,7 +49,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export async function action({ request }: Route.ActionArgs) {
   const user = await requirePermission(request, "space:measure");
-  const formData = await request.formData();
+  const formData = await readForm(request);
   const asked = formData.get("unit");
   const unit: LengthUnit = asked === "mm" || asked === "in" ? asked : user.units;
   const submission = parseWithZod(formData, { schema: itemSchema(unit) });

@@ -11,6 +11,7 @@ import { consumeToken, peekToken } from "~/models/tokens.server";
 import { markEmailVerified, setPassword } from "~/models/users.server";
 import { hashPassword } from "~/services/password.server";
 import { redirectWithNotice } from "~/services/session.server";
+import { readForm } from "~/services/form-body.server";
 
 export function meta() {
   return [{ title: "Choose a new password · Sistership" }];
@@ -25,7 +26,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 }
 
 export async function action({ request }: Route.ActionArgs) {
-  const submission = parseWithZod(await request.formData(), { schema: resetPasswordSchema });
+  const submission = parseWithZod(await readForm(request), { schema: resetPasswordSchema });
   if (submission.status !== "success") {
     return data({ result: submission.reply({ hideFields: ["password", "confirm"] }) }, { status: 400 });
   }

@@ -13,15 +13,22 @@ import { decide, EditingError, getForReview } from "~/models/writeup-editing.ser
 import { env } from "~/services/env.server";
 import { kickOutbox } from "~/services/outbox-worker.server";
 import { redirectWithNotice, requirePermission } from "~/services/session.server";
+import { readForm } from "~/services/form-body.server";
 
 export function meta({ loaderData }: Route.MetaArgs) {
   return [{ title: loaderData ? `Review: ${loaderData.revision.title} · Sistership` : "Review · Sistership" }];
 }
 
+/** The revision's number from the address, or null when it cannot be one (a PostgreSQL integer). */
+function revisionIdOf(raw: string): number | null {
+  const id = Number(raw);
+  return /^\d{1,10}$/.test(raw) && id >= 1 && id <= 2_147_483_647 ? id : null;
+}
+
 export async function loader({ request, params }: Route.LoaderArgs) {
   const moderator = await requirePermission(request, "writeup:review");
-  const id = Number(params.revisionId);
-  const found = Number.isInteger(id) ? await getForReview(db, id) : null;
+  const id = revisionIdOf(params.revisionId);
+  const found = id === null ? null : await getForReview(db, id);
   if (!found) throw data("No such revision.", { status: 404 });
   const { revision: r, previous } = found;
   const changes = previous
@@ -45,17 +52,20 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 
 export async function action({ request, params }: Route.ActionArgs) {
   const moderator = await requirePermission(request, "writeup:review");
-  const form = await request.formData();
+  const revisionId = revisionIdOf(params.revisionId);
+  if (revisionId === null) throw data("No such revision.", { status: 404 });
+  const form = await readForm(request);
   const decision = String(form.get("decision") ?? "");
-  const reason = String(form.get("reason") ?? "").slice(0, 4000);
+  const reason = String(form.get("reason") ?? "");
   const checklist = Object.fromEntries(CHECKLIST.map((c) => [c.key, form.get(`check.${c.key}`) === "on"]));
   const errors: Record<string, string> = {};
   if (!(DECISIONS as readonly string[]).includes(decision)) errors.decision = "Choose a decision.";
   if (decision === "publish" && !Object.values(checklist).every(Boolean)) errors.checklist = "Tick every point of the checklist before publishing, or ask for changes.";
   if (decision && decision !== "publish" && reason.trim().length < 10) errors.reason = "Tell the author why, in a sentence or more.";
+  if (reason.length > 4000) errors.reason = `Keep it under 4,000 characters (this is ${reason.length.toLocaleString("en-US")}).`;
   if (Object.keys(errors).length) return data({ errors, values: { decision, reason, checklist } }, { status: 400 });
   try {
-    const result = await decide(db, { revisionId: Number(params.revisionId), moderatorId: moderator.id, decision: decision as Decision, reason, checklist, appUrl: env.APP_URL });
+    const result = await decide(db, { revisionId, moderatorId: moderator.id, decision: decision as Decision, reason, checklist, appUrl: env.APP_URL });
     kickOutbox();
     const done = result.status === "published" ? "Published" : result.status === "needs_changes" ? "Sent back for changes" : "Declined";
     return redirectWithNotice(request, "/review", `${done}. The author has been e-mailed.`);

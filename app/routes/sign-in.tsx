@@ -8,6 +8,7 @@ import { signInSchema } from "~/domain/account-forms";
 import { checkLimit, clientAddress, hitLimit, LIMITS } from "~/models/rate-limits.server";
 import { authenticator, SIGN_IN_FAILED, SignInError } from "~/services/auth.server";
 import { requireAnonymous, safeRedirect, signIn } from "~/services/session.server";
+import { readForm } from "~/services/form-body.server";
 
 export function meta() {
   return [{ title: "Sign in · Sistership" }];
@@ -20,7 +21,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export async function action({ request }: Route.ActionArgs) {
   // Validate a copy: the authenticator reads the original body.
-  const submission = parseWithZod(await request.clone().formData(), { schema: signInSchema });
+  const submission = parseWithZod(await readForm(request.clone()), { schema: signInSchema });
   if (submission.status !== "success") {
     return data({ result: submission.reply({ hideFields: ["password"] }) }, { status: 400 });
   }

@@ -14,6 +14,7 @@ import { env } from "~/services/env.server";
 import { kickOutbox } from "~/services/outbox-worker.server";
 import { hashPassword } from "~/services/password.server";
 import { requireAnonymous, signIn } from "~/services/session.server";
+import { readForm } from "~/services/form-body.server";
 
 export function meta() {
   return [{ title: "Make an account · Sistership" }];
@@ -25,7 +26,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 }
 
 export async function action({ request }: Route.ActionArgs) {
-  const submission = parseWithZod(await request.formData(), { schema: signUpSchema });
+  const submission = parseWithZod(await readForm(request), { schema: signUpSchema });
   if (submission.status !== "success") {
     return data({ result: submission.reply({ hideFields: ["password"] }) }, { status: 400 });
   }

@@ -5,6 +5,7 @@ import { db } from "~/db/index.server";
 import { consumeToken, peekToken } from "~/models/tokens.server";
 import { markEmailVerified } from "~/models/users.server";
 import { getUser, redirectWithNotice } from "~/services/session.server";
+import { readForm } from "~/services/form-body.server";
 
 export function meta() {
   return [{ title: "Confirm your e-mail address · Sistership" }];
@@ -18,7 +19,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 }
 
 export async function action({ request }: Route.ActionArgs) {
-  const token = String((await request.formData()).get("token") ?? "");
+  const token = String((await readForm(request)).get("token") ?? "");
   const userId = token ? await consumeToken(db, token, "verify_email") : null;
   if (userId === null) {
     return data({ error: "This link has expired or has already been used. Sign in and ask for a new one from your account page." }, { status: 400 });

@@ -10,6 +10,7 @@ import { z } from "zod";
 import type { Db } from "~/db/client.server";
 import * as s from "~/db/schema";
 import { type Storage, storage } from "~/services/storage.server";
+import { checkFormType, checkFormValues } from "./form-body.server";
 
 type DbOrTx = Db | Parameters<Parameters<Db["transaction"]>[0]>[0];
 
@@ -201,6 +202,7 @@ export async function parsePhotoUpload(
   const maxBytes = options.maxBytes ?? MAX_PHOTO_BYTES;
   const fieldName = options.fieldName ?? "photo";
   const hardLimit = 2 * maxBytes;
+  checkFormType(request);
   let file: File | null = null;
   let error: string | null = null;
   try {
@@ -215,6 +217,7 @@ export async function parsePhotoUpload(
       file = upload;
       return upload;
     });
+    checkFormValues(request, formData);
     return { formData, file, error };
   } catch (e) {
     if (e instanceof MaxFileSizeExceededError) {
