@@ -153,7 +153,11 @@ export async function seedLedger(tx: Tx, dir: string): Promise<{ standardItems: 
 
   const writeupSlugs = [...new Set(y.calculations.map((c) => c.writeup))];
   const writeupRows = writeupSlugs.length
-    ? await tx.select({ id: s.writeups.id, slug: s.writeups.slug }).from(s.writeups).where(inArray(s.writeups.slug, writeupSlugs))
+    ? await tx.select({
+      id: s.writeups.id, slug: s.writeups.slug,
+      // The seeded numbers belong to the revision readers see: the last published one, else the latest.
+      revisionId: sql<number>`(select r.id from writeup_revisions r where r.writeup_id = "writeups"."id" order by (r.status = 'published') desc, r.number desc limit 1)`,
+    }).from(s.writeups).where(inArray(s.writeups.slug, writeupSlugs))
     : [];
   if (writeupRows.length) {
     await tx.delete(s.writeupCalculations).where(and(inArray(s.writeupCalculations.writeupId, writeupRows.map((w) => w.id))));
@@ -186,7 +190,8 @@ export async function seedLedger(tx: Tx, dir: string): Promise<{ standardItems: 
     }
     const calc: Calculation | null = readCalculation(c.kind, raw);
     if (!calc) throw new Error(`content-seed: ledger.yaml calculation ${i + 1} (${c.kind} on ${c.writeup}) does not read`);
-    await tx.insert(s.writeupCalculations).values({ writeupId: writeup.id, kind: calc.kind, input: calc.input, title: c.title, position: i });
+    if (!writeup.revisionId) throw new Error(`content-seed: ${c.writeup} has no revision to attach its numbers to`);
+    await tx.insert(s.writeupCalculations).values({ writeupId: writeup.id, revisionId: writeup.revisionId, kind: calc.kind, input: calc.input, title: c.title, position: i });
   }
 
   return { standardItems: y.standardItems.length, ledgerItems, calculations: y.calculations.length };

@@ -484,17 +484,28 @@ export const boatGmCalibrations = pgTable("boat_gm_calibrations", {
 
 export const calculationKindEnum = pgEnum("calculation_kind", ["weight-move", "cable-run"]);
 
-/** A calculator attached to a write-up: its input (app/domain/calculations.ts); the numbers are computed when shown. */
+/**
+ * A calculator attached to a write-up: its input (app/domain/calculations.ts); the numbers are computed when shown.
+ * It belongs to the revision that attached it and stays in the later ones until a revision removes it: a
+ * revision's numbers are those attached in it or before and not removed by then (docs/decisions/0011).
+ */
 export const writeupCalculations = pgTable("writeup_calculations", {
   id: serial("id").primaryKey(),
   writeupId: integer("writeup_id").notNull().references(() => writeups.id, { onDelete: "cascade" }),
+  revisionId: integer("revision_id").notNull().references(() => writeupRevisions.id, { onDelete: "cascade" }),
+  removedInRevisionId: integer("removed_in_revision_id").references(() => writeupRevisions.id, { onDelete: "set null" }),
   kind: calculationKindEnum("kind").notNull(),
   position: integer("position").notNull().default(0),
   title: text("title").notNull().default(""),
   input: jsonb("input").notNull(),
   createdBy: integer("created_by").references(() => users.id, { onDelete: "set null" }),
   createdAt: createdAt(),
-}, (t) => [index("writeup_calculations_writeup_idx").on(t.writeupId, t.position)]);
+}, (t) => [
+  index("writeup_calculations_writeup_idx").on(t.writeupId, t.position),
+  index("writeup_calculations_revision_idx").on(t.revisionId),
+  // Numbers taken off in the revision that attached them are deleted, not marked.
+  check("writeup_calculations_removed_later", sql`${t.removedInRevisionId} is null or ${t.removedInRevisionId} <> ${t.revisionId}`),
+]);
 
 // --- Search ---
 // One search over published write-ups, spaces and catalogue items (app/models/search.server.ts):

@@ -13,7 +13,7 @@ import { formatLength, formatWeight } from "~/domain/units";
 import { getPublishedWriteup } from "~/models/writeups.server";
 import { loadConversation } from "./conversation.server";
 import { WriteupCalculations } from "~/components/writeup-calculations";
-import { listWriteupCalculations } from "~/models/calculations.server";
+import { listPublishedCalculations } from "~/models/calculations.server";
 import { readerUnit } from "./reader-unit.server";
 
 export async function loader({ params, request }: Route.LoaderArgs) {
@@ -39,7 +39,7 @@ export async function loader({ params, request }: Route.LoaderArgs) {
     },
     cautions: cautionsFor(systems),
     conversation,
-    calculations: await listWriteupCalculations(db, writeup.id),
+    calculations: await listPublishedCalculations(db, writeup.id),
     readerUnit: await readerUnit(request),
   }, { headers });
 }
