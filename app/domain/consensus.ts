@@ -123,3 +123,38 @@ export function boxConsensus(measurements: readonly Box[]): BoxConsensus | null 
   );
   return { length, width, height, count: measurements.length, outliers };
 }
+
+/** One measurement of one section of a space (its position; 0 is the main section). */
+export interface SectionMeasurement {
+  section: number;
+  box: Box;
+}
+
+export interface SectionsConsensus {
+  /** The consensus of each measured section, by position. */
+  bySection: Map<number, BoxConsensus>;
+  /** For each measurement (in input order), its dimensions flagged as far from the others of its section. */
+  flagged: (keyof Box)[][];
+}
+
+/**
+ * Consensus section by section: a space's usable volume is one or more sections, and members
+ * measure any of them; measurements of different sections are never mixed.
+ */
+export function consensusBySection(measurements: readonly SectionMeasurement[]): SectionsConsensus {
+  const groups = new Map<number, number[]>();
+  measurements.forEach((m, i) => {
+    if (!Number.isInteger(m.section) || m.section < 0) throw new RangeError(`Not a section: ${m.section}`);
+    groups.set(m.section, [...(groups.get(m.section) ?? []), i]);
+  });
+  const bySection = new Map<number, BoxConsensus>();
+  const flagged: (keyof Box)[][] = measurements.map(() => []);
+  for (const [section, indexes] of groups) {
+    const c = boxConsensus(indexes.map((i) => measurements[i].box)) as BoxConsensus;
+    bySection.set(section, c);
+    for (const axis of ["length", "width", "height"] as const) {
+      for (const k of c[axis].outliers) flagged[indexes[k]].push(axis);
+    }
+  }
+  return { bySection, flagged };
+}

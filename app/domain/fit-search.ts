@@ -3,12 +3,12 @@
  * the database's candidate filter, the words for an orientation, and the reading of the fit
  * API's parameters. Pure: the queries are in app/models/spaces.server.ts.
  *
- * Which box the fit uses for a space (docs/decisions/0002-consensus-and-sections.md): members
- * measure the main section (the first); where there are measurements, the consensus (median,
- * dimension by dimension) replaces the main section's described size; the other sections keep
- * theirs.
+ * Which box the fit uses for a space (docs/decisions/0002-consensus-and-sections.md and
+ * 0010-measurements-of-every-section.md): members measure any of its sections; where a section
+ * has measurements, their consensus (median, dimension by dimension) replaces its described size;
+ * the sections nobody measured keep theirs.
  */
-import { boxConsensus } from "./consensus";
+import { consensusBySection, type SectionMeasurement } from "./consensus";
 import { isUpright, sortedDims, VERDICT_TEXT, type Opening, type Orientation, type Placement, type RowPlacement } from "./fit";
 import { LAST_HULL, FIRST_HULL } from "./hulls";
 import { formatLength, mmToInches, parseDimensions, parseLength, type Box, type LengthUnit } from "./units";
@@ -26,16 +26,15 @@ export function fitOpening(
 }
 
 /**
- * The sections the fit uses: the main section (position 0) takes the consensus of the
- * measurements where there are any; the others are as described.
+ * The sections the fit uses: each section takes the consensus of its own measurements where
+ * there are any; the others are as described. A plain box is a measurement of the main section.
  */
-export function fitSections(described: readonly Box[], measurements: readonly Box[]): Box[] {
-  const consensus = boxConsensus(measurements);
-  return described.map((box, i) =>
-    i === 0 && consensus
-      ? { length: consensus.length.consensus, width: consensus.width.consensus, height: consensus.height.consensus }
-      : { ...box },
-  );
+export function fitSections(described: readonly Box[], measurements: readonly (Box | SectionMeasurement)[]): Box[] {
+  const { bySection } = consensusBySection(measurements.map((m) => ("section" in m ? m : { section: 0, box: m })));
+  return described.map((box, i) => {
+    const c = bySection.get(i);
+    return c ? { length: c.length.consensus, width: c.width.consensus, height: c.height.consensus } : { ...box };
+  });
 }
 
 /**

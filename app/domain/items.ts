@@ -96,11 +96,21 @@ function measuredOn(today: string) {
 }
 
 /**
- * Adding a measurement of a space's main section. Sizes are typed as people write them
- * ("13 1/2", "343 mm"); a number alone is in the reader's unit.
+ * A measurement of one section of a space (its position; 0, the main section, when the space
+ * has only one). Sizes are typed as people write them ("13 1/2", "343 mm"); a number alone is in
+ * the reader's unit. The same fields add a measurement and change one.
  */
-export function measurementSchema(unit: LengthUnit, today: string = new Date().toISOString().slice(0, 10)) {
+export function measurementSchema(
+  unit: LengthUnit,
+  today: string = new Date().toISOString().slice(0, 10),
+  sectionCount = 1,
+) {
   return z.object({
+    section: z.coerce
+      .number({ error: "Choose the part of the space you measured." })
+      .int({ message: "Choose the part of the space you measured." })
+      .min(0, { message: "Choose the part of the space you measured." })
+      .max(Math.max(0, sectionCount - 1), { message: "Choose one of this space's parts." }),
     length: lengthField("length (fore and aft)", unit),
     width: lengthField("width (athwartships)", unit),
     height: lengthField("height", unit),
@@ -113,6 +123,31 @@ export function measurementSchema(unit: LengthUnit, today: string = new Date().t
     measuredOn: measuredOn(today),
   });
 }
+
+const measurementId = z.coerce
+  .number({ error: "Choose a measurement." })
+  .int({ message: "Choose a measurement." })
+  .positive({ message: "Choose a measurement." });
+
+/** Why a measurement was changed or removed: optional for its author, asked of a moderator. */
+const changeReason = z
+  .string()
+  .trim()
+  .max(300, { message: "Use at most 300 characters." })
+  .optional()
+  .default("");
+
+/** Changing a measurement: its fields again, which one, and optionally why; a photo may be removed. */
+export function measurementEditSchema(unit: LengthUnit, today?: string, sectionCount = 1) {
+  return measurementSchema(unit, today, sectionCount).extend({
+    measurementId,
+    reason: changeReason,
+    removePhoto: z.boolean().optional().default(false),
+  });
+}
+
+/** Removing a measurement. */
+export const measurementDeleteSchema = z.object({ measurementId, reason: changeReason });
 
 /** A member's item for the catalogue. The weight is optional; a number alone is in lb (or kg with mm). */
 export function itemSchema(unit: LengthUnit) {

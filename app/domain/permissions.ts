@@ -14,6 +14,7 @@ export const ROLE_LABELS: Record<Role, string> = {
 export const PERMISSIONS = {
   "writeup:write": ["member"],
   "space:measure": ["member"],
+  "space:moderate-measurements": ["moderator", "admin"],
   "boat:register": ["member"],
   "writeup:review": ["moderator", "admin"],
   "digest:compile": ["secretary", "admin"],
@@ -28,6 +29,11 @@ export type Permission = keyof typeof PERMISSIONS;
 export function can(roles: readonly Role[], permission: Permission): boolean {
   const allowed: readonly Role[] = PERMISSIONS[permission];
   return roles.some((r) => allowed.includes(r));
+}
+
+/** A measurement of a space is changed or removed by the member who took it, or by a moderator or an administrator. */
+export function canChangeMeasurement(user: { id: number; roles: readonly Role[] }, takenBy: number): boolean {
+  return (user.id === takenBy && can(user.roles, "space:measure")) || can(user.roles, "space:moderate-measurements");
 }
 
 export function isRole(value: string): value is Role {

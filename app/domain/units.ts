@@ -376,6 +376,24 @@ export function formatLength(
   return `${sign}${[whole || "", fraction].filter(Boolean).join(" ")} in`;
 }
 
+/**
+ * A stored length as text to edit again, which `parseLength` reads back to the same value (within
+ * 1/200 mm): in inches, the fraction to 1/16 in where it is exact ("13 1/2"), else decimal inches
+ * to 1/10,000 in where those are exact ("13.478"), else millimetres to 1/100 mm ("342.34 mm"); in
+ * millimetres, to 1/100 mm ("342.9"). A number alone is in the reader's unit.
+ */
+export function editableLength(mm: number, unit: LengthUnit): string {
+  if (!Number.isFinite(mm)) throw new RangeError(`Not a length: ${mm}`);
+  const trim = (s: string) => s.replace(/\.?0+$/, "");
+  const millimetres = trim(mm.toFixed(2));
+  if (unit === "mm") return millimetres;
+  const inches = mmToInches(mm);
+  if (Math.abs(Math.round(inches * 16) / 16 - inches) * MM_PER_INCH < 1e-6) return formatLength(mm, "in").replace(/ in$/, "");
+  const decimal = Math.round(inches * 10_000) / 10_000;
+  if (Math.abs(decimal - inches) * MM_PER_INCH < 1e-6) return trim(decimal.toFixed(4));
+  return `${millimetres} mm`;
+}
+
 /** "12 1/16 x 6 13/16 x 8 7/8 in", "306 x 173 x 225 mm". */
 export function formatDimensions(box: Box, unit: LengthUnit): string {
   const strip = (s: string) => s.replace(/ (in|mm)$/, "");

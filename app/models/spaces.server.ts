@@ -1,11 +1,13 @@
 // Queries and writes for the hidden spaces of the class: the register, one space with its
-// measurements, adding a measurement (which keeps the consensus the fit uses up to date), and
-// the fit search over every space. Every function takes the db (or a transaction) first.
-import { and, asc, eq, inArray, sql, type SQL } from "drizzle-orm";
+// measurements, adding, changing and removing a measurement (each keeps the consensus the fit
+// uses up to date, and a change or a removal is kept in the space's history), and the fit search
+// over every space. Every function takes the db (or a transaction) first.
+import { and, asc, desc, eq, inArray, sql, type SQL } from "drizzle-orm";
+import { alias } from "drizzle-orm/pg-core";
 import type pg from "pg";
 import type { Db } from "~/db/client.server";
 import * as s from "~/db/schema";
-import { boxConsensus, type BoxConsensus } from "~/domain/consensus";
+import { consensusBySection, type BoxConsensus } from "~/domain/consensus";
 import { rankSpaces, type Opening, type Orientation, type RowPlacement, type Space, type Verdict } from "~/domain/fit";
 import { candidateRegions, fitOpening, openingBounds, type RecordedFace } from "~/domain/fit-search";
 import type { HullRange } from "~/domain/hulls";
@@ -19,8 +21,10 @@ export type SpaceSection = {
   label: string;
   /** The size as described when the space was recorded. */
   described: Box;
-  /** The size the fit uses: for the main section, the consensus of the measurements if any. */
+  /** The size the fit uses: the consensus of the measurements of this section if any. */
   fit: Box;
+  /** Consensus of the members' measurements of this section; null when nobody has measured it. */
+  consensus: BoxConsensus | null;
 };
 
 export type SpaceSummary = {
@@ -33,13 +37,17 @@ export type SpaceSummary = {
   opening: { widthMm: number; heightMm: number; face: RecordedFace } | null;
   obstructions: string;
   sections: SpaceSection[];
+  /** Measurements of all its sections. */
   measurementCount: number;
-  /** Consensus of the measurements of the main section; null when nobody has measured it. */
+  /** Consensus of the measurements of the main section; null when nobody has measured it (each
+   * section's own is on the section). */
   consensus: BoxConsensus | null;
 };
 
 export type Measurement = {
   id: number;
+  /** The section measured (its position; 0 is the main one). */
+  section: number;
   by: string;
   userId: number;
   hullNumber: number;
@@ -50,11 +58,30 @@ export type Measurement = {
   /** Object key of the photo, when there is one. */
   photoKey: string | null;
   createdAt: Date;
+  /** The last change after it was added, and who made it; null when never changed. */
+  updated: { at: Date; by: string | null } | null;
+  /** Its dimensions that sit far from the other measurements of the same section. */
+  flagged: (keyof Box)[];
+};
+
+export type MeasurementChange = {
+  id: number;
+  measurementId: number;
+  kind: "edited" | "deleted";
+  at: Date;
+  /** Who changed it, and who had taken it (null once their account is gone). */
+  by: string | null;
+  takenBy: string | null;
+  before: s.MeasurementRecord;
+  after: s.MeasurementRecord | null;
+  reason: string;
 };
 
 export type SpaceDetail = SpaceSummary & {
   measurements: Measurement[];
   writeups: { slug: string; title: string }[];
+  /** Changes and removals of its measurements, newest first. */
+  changes: MeasurementChange[];
 };
 
 /** The space as the fit sees it (app/domain/fit.ts). */
@@ -113,6 +140,7 @@ async function loadSpaces(db: DbOrTx, where: SQL | undefined): Promise<SpaceSumm
     db
       .select({
         spaceId: s.spaceMeasurements.spaceId,
+        section: s.spaceMeasurements.section,
         length: s.spaceMeasurements.lengthMm,
         width: s.spaceMeasurements.widthMm,
         height: s.spaceMeasurements.heightMm,
@@ -122,7 +150,8 @@ async function loadSpaces(db: DbOrTx, where: SQL | undefined): Promise<SpaceSumm
       .orderBy(asc(s.spaceMeasurements.measuredOn), asc(s.spaceMeasurements.id)),
   ]);
   return rows.map((r) => {
-    const boxes = measured.filter((m) => m.spaceId === r.id).map(({ length, width, height }) => ({ length, width, height }));
+    const mine = measured.filter((m) => m.spaceId === r.id);
+    const { bySection } = consensusBySection(mine.map(({ section, length, width, height }) => ({ section, box: { length, width, height } })));
     return {
       id: r.id,
       slug: r.slug,
@@ -142,9 +171,10 @@ async function loadSpaces(db: DbOrTx, where: SQL | undefined): Promise<SpaceSumm
           label: sec.label,
           described: { length: sec.lengthMm, width: sec.widthMm, height: sec.heightMm },
           fit: { length: Number(sec.fitLength), width: Number(sec.fitWidth), height: Number(sec.fitHeight) },
+          consensus: bySection.get(sec.position) ?? null,
         })),
-      measurementCount: boxes.length,
-      consensus: boxConsensus(boxes),
+      measurementCount: mine.length,
+      consensus: bySection.get(0) ?? null,
     };
   });
 }
@@ -162,14 +192,20 @@ export async function listSpaces(db: DbOrTx, filter: { hull?: number | null; ran
   return loadSpaces(db, conditions.length ? and(...conditions) : undefined);
 }
 
-/** One space by its id or its slug, with its measurements (oldest first) and the published write-ups that used it. */
+const changer = alias(s.users, "changer");
+
+/**
+ * One space by its id or its slug, with its measurements (by section, then oldest first), the
+ * published write-ups that used it, and the history of changes to its measurements.
+ */
 export async function getSpace(db: DbOrTx, key: number | string): Promise<SpaceDetail | null> {
   const [space] = await loadSpaces(db, typeof key === "number" ? eq(s.spaces.id, key) : eq(s.spaces.slug, key));
   if (!space) return null;
-  const [measurements, writeups] = await Promise.all([
+  const [measurements, writeups, changes] = await Promise.all([
     db
       .select({
         id: s.spaceMeasurements.id,
+        section: s.spaceMeasurements.section,
         by: sql<string>`coalesce(${s.users.creditAs}, ${s.users.displayName})`,
         userId: s.spaceMeasurements.userId,
         hullNumber: s.spaceMeasurements.hullNumber,
@@ -181,49 +217,111 @@ export async function getSpace(db: DbOrTx, key: number | string): Promise<SpaceD
         photoId: s.spaceMeasurements.photoId,
         photoKey: s.photos.storageKey,
         createdAt: s.spaceMeasurements.createdAt,
+        updatedAt: s.spaceMeasurements.updatedAt,
+        updatedBy: sql<string | null>`coalesce(${changer.creditAs}, ${changer.displayName})`,
       })
       .from(s.spaceMeasurements)
       .innerJoin(s.users, eq(s.users.id, s.spaceMeasurements.userId))
+      .leftJoin(changer, eq(changer.id, s.spaceMeasurements.updatedBy))
       .leftJoin(s.photos, eq(s.photos.id, s.spaceMeasurements.photoId))
       .where(eq(s.spaceMeasurements.spaceId, space.id))
-      .orderBy(asc(s.spaceMeasurements.measuredOn), asc(s.spaceMeasurements.id)),
+      .orderBy(asc(s.spaceMeasurements.section), asc(s.spaceMeasurements.measuredOn), asc(s.spaceMeasurements.id)),
     db
       .select({ slug: s.writeups.slug, title: s.writeups.title })
       .from(s.writeupSpaces)
       .innerJoin(s.writeups, eq(s.writeups.id, s.writeupSpaces.writeupId))
       .where(and(eq(s.writeupSpaces.spaceId, space.id), eq(s.writeups.status, "published")))
       .orderBy(asc(s.writeups.title)),
+    listMeasurementChanges(db, space.id),
   ]);
+  const boxes = measurements.map(({ section, length, width, height }) => ({ section, box: { length, width, height } }));
+  const { flagged } = consensusBySection(boxes);
   return {
     ...space,
-    measurements: measurements.map(({ length, width, height, ...m }) => ({ ...m, box: { length, width, height } })),
+    measurements: measurements.map((row, i): Measurement => ({
+      id: row.id,
+      section: row.section,
+      by: row.by,
+      userId: row.userId,
+      hullNumber: row.hullNumber,
+      method: row.method,
+      measuredOn: row.measuredOn,
+      photoId: row.photoId,
+      photoKey: row.photoKey,
+      createdAt: row.createdAt,
+      box: { length: row.length, width: row.width, height: row.height },
+      updated: row.updatedAt ? { at: row.updatedAt, by: row.updatedBy } : null,
+      flagged: flagged[i],
+    })),
     writeups,
+    changes,
   };
 }
 
-/**
- * Recomputes the consensus of a space's measurements and stores it on its main section (the
- * first), where the fit search reads it; clears it when no measurement is left.
- */
-export async function refreshSpaceConsensus(db: DbOrTx, spaceId: number): Promise<BoxConsensus | null> {
-  const boxes = await db
-    .select({ length: s.spaceMeasurements.lengthMm, width: s.spaceMeasurements.widthMm, height: s.spaceMeasurements.heightMm })
-    .from(s.spaceMeasurements)
-    .where(eq(s.spaceMeasurements.spaceId, spaceId));
-  const consensus = boxConsensus(boxes);
-  await db
-    .update(s.spaceSections)
-    .set({
-      consensusLengthMm: consensus?.length.consensus ?? null,
-      consensusWidthMm: consensus?.width.consensus ?? null,
-      consensusHeightMm: consensus?.height.consensus ?? null,
+const taker = alias(s.users, "taker");
+
+/** The history of a space's measurements: every change and removal, newest first. */
+export async function listMeasurementChanges(db: DbOrTx, spaceId: number, limit = 50): Promise<MeasurementChange[]> {
+  return db
+    .select({
+      id: s.measurementChanges.id,
+      measurementId: s.measurementChanges.measurementId,
+      kind: s.measurementChanges.kind,
+      at: s.measurementChanges.changedAt,
+      by: sql<string | null>`coalesce(${changer.creditAs}, ${changer.displayName})`,
+      takenBy: sql<string | null>`coalesce(${taker.creditAs}, ${taker.displayName})`,
+      before: s.measurementChanges.before,
+      after: s.measurementChanges.after,
+      reason: s.measurementChanges.reason,
     })
-    .where(and(eq(s.spaceSections.spaceId, spaceId), eq(s.spaceSections.position, 0)));
-  return consensus;
+    .from(s.measurementChanges)
+    .leftJoin(changer, eq(changer.id, s.measurementChanges.changedBy))
+    .leftJoin(taker, eq(taker.id, s.measurementChanges.takenBy))
+    .where(eq(s.measurementChanges.spaceId, spaceId))
+    .orderBy(desc(s.measurementChanges.changedAt), desc(s.measurementChanges.id))
+    .limit(limit);
+}
+
+/**
+ * Recomputes the consensus of a space's measurements, section by section, and stores it on each
+ * section, where the fit search reads it (PostgreSQL then recomputes the section's indexed cube
+ * columns); clears it on a section no measurement is left of. Returns the consensus by section.
+ */
+export async function refreshSpaceConsensus(db: DbOrTx, spaceId: number): Promise<Map<number, BoxConsensus>> {
+  const [rows, sections] = await Promise.all([
+    db
+      .select({
+        section: s.spaceMeasurements.section,
+        length: s.spaceMeasurements.lengthMm,
+        width: s.spaceMeasurements.widthMm,
+        height: s.spaceMeasurements.heightMm,
+      })
+      .from(s.spaceMeasurements)
+      .where(eq(s.spaceMeasurements.spaceId, spaceId)),
+    db
+      .select({ position: s.spaceSections.position })
+      .from(s.spaceSections)
+      .where(eq(s.spaceSections.spaceId, spaceId)),
+  ]);
+  const { bySection } = consensusBySection(rows.map(({ section, ...box }) => ({ section, box })));
+  for (const { position } of sections) {
+    const c = bySection.get(position);
+    await db
+      .update(s.spaceSections)
+      .set({
+        consensusLengthMm: c?.length.consensus ?? null,
+        consensusWidthMm: c?.width.consensus ?? null,
+        consensusHeightMm: c?.height.consensus ?? null,
+      })
+      .where(and(eq(s.spaceSections.spaceId, spaceId), eq(s.spaceSections.position, position)));
+  }
+  return bySection;
 }
 
 export type NewMeasurement = {
   spaceId: number;
+  /** The section measured; 0, the main one, when not given. */
+  section?: number;
   userId: number;
   hullNumber: number;
   method: MeasureMethod;
@@ -232,13 +330,14 @@ export type NewMeasurement = {
   photoId?: number | null;
 };
 
-/** Records a member's measurement of a space's main section and updates the consensus. */
+/** Records a member's measurement of a section of a space and updates its consensus. */
 export async function addMeasurement(db: Db, m: NewMeasurement): Promise<number> {
   return db.transaction(async (tx) => {
     const [row] = await tx
       .insert(s.spaceMeasurements)
       .values({
         spaceId: m.spaceId,
+        section: m.section ?? 0,
         userId: m.userId,
         hullNumber: m.hullNumber,
         method: m.method,
@@ -251,6 +350,144 @@ export async function addMeasurement(db: Db, m: NewMeasurement): Promise<number>
       .returning({ id: s.spaceMeasurements.id });
     await refreshSpaceConsensus(tx, m.spaceId);
     return row.id;
+  });
+}
+
+/** One measurement as stored: who took it, of which space and section. */
+export type StoredMeasurement = {
+  id: number;
+  spaceId: number;
+  userId: number;
+  record: s.MeasurementRecord;
+};
+
+const storedColumns = {
+  id: s.spaceMeasurements.id,
+  spaceId: s.spaceMeasurements.spaceId,
+  userId: s.spaceMeasurements.userId,
+  section: s.spaceMeasurements.section,
+  hullNumber: s.spaceMeasurements.hullNumber,
+  method: s.spaceMeasurements.method,
+  measuredOn: s.spaceMeasurements.measuredOn,
+  lengthMm: s.spaceMeasurements.lengthMm,
+  widthMm: s.spaceMeasurements.widthMm,
+  heightMm: s.spaceMeasurements.heightMm,
+  photoId: s.spaceMeasurements.photoId,
+};
+
+type StoredRow = { id: number; spaceId: number; userId: number } & s.MeasurementRecord;
+
+function asStored(row: StoredRow): StoredMeasurement {
+  const { id, spaceId, userId, ...record } = row;
+  return { id, spaceId, userId, record };
+}
+
+/** A measurement of the given space, or null (none, or one of another space). */
+export async function getMeasurement(db: DbOrTx, spaceId: number, id: number): Promise<StoredMeasurement | null> {
+  const [row] = await db
+    .select(storedColumns)
+    .from(s.spaceMeasurements)
+    .where(and(eq(s.spaceMeasurements.id, id), eq(s.spaceMeasurements.spaceId, spaceId)));
+  return row ? asStored(row) : null;
+}
+
+export type MeasurementEdit = {
+  section: number;
+  hullNumber: number;
+  method: MeasureMethod;
+  measuredOn: string;
+  box: Box;
+  /** A new photo's id; null removes the photo; undefined keeps it. */
+  photoId?: number | null;
+};
+
+/**
+ * Changes a measurement (by its author or a moderator: the caller checks), keeps what it said
+ * before in the space's history with who changed it and why, and updates the consensus of the
+ * space's sections, all in one transaction. Returns false when the measurement is gone.
+ */
+export async function updateMeasurement(
+  db: Db,
+  target: { spaceId: number; id: number },
+  edit: MeasurementEdit,
+  by: { userId: number; reason?: string },
+): Promise<boolean> {
+  return db.transaction(async (tx) => {
+    const [old] = await tx
+      .select(storedColumns)
+      .from(s.spaceMeasurements)
+      .where(and(eq(s.spaceMeasurements.id, target.id), eq(s.spaceMeasurements.spaceId, target.spaceId)))
+      .for("update");
+    if (!old) return false;
+    const before = asStored(old);
+    const after: s.MeasurementRecord = {
+      section: edit.section,
+      hullNumber: edit.hullNumber,
+      method: edit.method,
+      measuredOn: edit.measuredOn,
+      lengthMm: edit.box.length,
+      widthMm: edit.box.width,
+      heightMm: edit.box.height,
+      photoId: edit.photoId === undefined ? before.record.photoId : edit.photoId,
+    };
+    await tx
+      .update(s.spaceMeasurements)
+      .set({
+        section: after.section,
+        hullNumber: after.hullNumber,
+        method: edit.method,
+        measuredOn: after.measuredOn,
+        lengthMm: after.lengthMm,
+        widthMm: after.widthMm,
+        heightMm: after.heightMm,
+        photoId: after.photoId,
+        updatedAt: sql`now()`,
+        updatedBy: by.userId,
+      })
+      .where(eq(s.spaceMeasurements.id, target.id));
+    await tx.insert(s.measurementChanges).values({
+      spaceId: target.spaceId,
+      measurementId: target.id,
+      kind: "edited",
+      changedBy: by.userId,
+      takenBy: before.userId,
+      before: before.record,
+      after,
+      reason: by.reason ?? "",
+    });
+    await refreshSpaceConsensus(tx, target.spaceId);
+    return true;
+  });
+}
+
+/**
+ * Removes a measurement (by its author or a moderator: the caller checks), keeps what it said in
+ * the space's history, and updates the consensus, in one transaction. False when already gone.
+ */
+export async function deleteMeasurement(
+  db: Db,
+  target: { spaceId: number; id: number },
+  by: { userId: number; reason?: string },
+): Promise<boolean> {
+  return db.transaction(async (tx) => {
+    const [old] = await tx
+      .delete(s.spaceMeasurements)
+      .where(and(eq(s.spaceMeasurements.id, target.id), eq(s.spaceMeasurements.spaceId, target.spaceId)))
+      .returning(storedColumns);
+    if (!old) return false;
+    const before = asStored(old);
+    await tx.insert(s.measurementChanges).values({
+      spaceId: target.spaceId,
+      measurementId: target.id,
+      kind: "deleted",
+      changedBy: by.userId,
+      takenBy: before.userId,
+      before: before.record,
+      after: null,
+      reason: by.reason ?? "",
+    });
+    await refreshSpaceConsensus(tx, target.spaceId);
+    return true;
   });
 }
 

@@ -2,7 +2,8 @@
 import type { BoxConsensus, DimensionConsensus } from "~/domain/consensus";
 import { boxInUnit, inUnit } from "~/domain/fit-search";
 import type { LengthUnit } from "~/domain/units";
-import type { Measurement, SpaceSummary } from "~/models/spaces.server";
+import type { MeasurementRecord } from "~/db/schema";
+import type { Measurement, MeasurementChange, SpaceSummary } from "~/models/spaces.server";
 
 export function readApiUnit(q: URLSearchParams): LengthUnit | null {
   const raw = (q.get("unit") ?? "").trim().toLowerCase();
@@ -17,6 +18,17 @@ function dimensionJson(d: DimensionConsensus, unit: LengthUnit) {
     spread: inUnit(d.spread, unit),
     outlierLimit: d.outlierLimit === null ? null : inUnit(d.outlierLimit, unit),
   };
+}
+
+function consensusJson(c: BoxConsensus | null, unit: LengthUnit) {
+  return c
+    ? {
+        count: c.count,
+        length: dimensionJson(c.length, unit),
+        width: dimensionJson(c.width, unit),
+        height: dimensionJson(c.height, unit),
+      }
+    : null;
 }
 
 export function spaceJson(sp: SpaceSummary, unit: LengthUnit) {
@@ -41,33 +53,47 @@ export function spaceJson(sp: SpaceSummary, unit: LengthUnit) {
       label: sec.label,
       ...boxInUnit(sec.described, unit),
       fit: boxInUnit(sec.fit, unit),
+      consensus: consensusJson(sec.consensus, unit),
     })),
     measurementCount: sp.measurementCount,
-    consensus: sp.consensus
-      ? {
-          count: sp.consensus.count,
-          length: dimensionJson(sp.consensus.length, unit),
-          width: dimensionJson(sp.consensus.width, unit),
-          height: dimensionJson(sp.consensus.height, unit),
-        }
-      : null,
+    // The main section's, as before sections were measured on their own.
+    consensus: consensusJson(sp.consensus, unit),
   };
 }
 
-/** Which of a measurement's dimensions sit far from the others (consensus.ts). */
-export function flaggedDimensions(index: number, consensus: BoxConsensus | null): ("length" | "width" | "height")[] {
-  if (!consensus) return [];
-  return (["length", "width", "height"] as const).filter((axis) => consensus[axis].outliers.includes(index));
-}
-
-export function measurementJson(m: Measurement, index: number, consensus: BoxConsensus | null, unit: LengthUnit) {
+export function measurementJson(m: Measurement, unit: LengthUnit) {
   return {
     id: m.id,
+    section: m.section,
     by: m.by,
     hullNumber: m.hullNumber,
     method: m.method,
     measuredOn: m.measuredOn,
     ...boxInUnit(m.box, unit),
-    flagged: flaggedDimensions(index, consensus),
+    flagged: m.flagged,
+    updatedAt: m.updated ? m.updated.at.toISOString() : null,
+  };
+}
+
+function recordJson(r: MeasurementRecord, unit: LengthUnit) {
+  return {
+    section: r.section,
+    hullNumber: r.hullNumber,
+    method: r.method,
+    measuredOn: r.measuredOn,
+    ...boxInUnit({ length: r.lengthMm, width: r.widthMm, height: r.heightMm }, unit),
+  };
+}
+
+export function changeJson(c: MeasurementChange, unit: LengthUnit) {
+  return {
+    measurementId: c.measurementId,
+    kind: c.kind,
+    at: c.at.toISOString(),
+    by: c.by,
+    takenBy: c.takenBy,
+    reason: c.reason,
+    before: recordJson(c.before, unit),
+    after: c.after ? recordJson(c.after, unit) : null,
   };
 }

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import {
   boxConsensus,
+  consensusBySection,
   consensusOf,
   median,
   medianAbsoluteDeviation,
@@ -173,5 +174,34 @@ describe("boxConsensus", () => {
 
   it("empty input gives no consensus", () => {
     expect(boxConsensus([])).toBeNull();
+  });
+});
+
+describe("consensusBySection: each part of a space on its own", () => {
+  const box = (length: number, width: number, height: number) => ({ length, width, height });
+  it("medians by hand, never mixing parts; flags named by measurement", () => {
+    const c = consensusBySection([
+      { section: 0, box: box(331, 390, 320) },
+      { section: 1, box: box(127, 203, 229) },
+      { section: 0, box: box(329, 392, 318) },
+      { section: 0, box: box(335, 391, 400) }, // height 400: 80 mm from the median of 318, 320, 400 (320)
+      { section: 1, box: box(133, 205, 231) },
+    ]);
+    // Part 0 lengths 331, 329, 335: sorted 329, 331, 335 -> 331; heights 318, 320, 400 -> 320.
+    expect(c.bySection.get(0)!.length.consensus).toBe(331);
+    expect(c.bySection.get(0)!.height.consensus).toBe(320);
+    // Part 1 lengths 127, 133: an even count, (127 + 133) / 2 = 130; spread 6.
+    expect(c.bySection.get(1)!.length.consensus).toBe(130);
+    expect(c.bySection.get(1)!.length.spread).toBe(6);
+    expect(c.bySection.get(1)!.count).toBe(2);
+    expect(c.bySection.has(2)).toBe(false);
+    // MAD of heights 318, 320, 400 is median(2, 0, 80) = 2; limit max(3 x 1.4826 x 2, 6.35) = 8.8956;
+    // 400 is 80 from 320: flagged. Two measurements of part 1: nothing is flagged.
+    expect(c.flagged).toEqual([[], [], [], ["height"], []]);
+  });
+
+  it("no measurements: nothing; a section that is not a position is refused", () => {
+    expect(consensusBySection([]).bySection.size).toBe(0);
+    expect(() => consensusBySection([{ section: -1, box: box(1, 1, 1) }])).toThrow(RangeError);
   });
 });

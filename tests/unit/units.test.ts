@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import {
+  editableLength,
   formatDimensions,
   formatLength,
   formatWeight,
@@ -363,5 +364,30 @@ describe("parseDimensions", () => {
       ok: false,
       message: "A fraction cannot have 0 below the line (as in 1/0).",
     });
+  });
+});
+
+describe("editableLength: a stored length as text to edit again", () => {
+  // 1 in = 25.4 mm exactly (NIST Handbook 44, Appendix C).
+  it("a sixteenth of an inch as its fraction, decimal inches as typed, millimetres to 1/100 mm", () => {
+    expect(editableLength(13.5 * 25.4, "in")).toBe("13 1/2");
+    expect(editableLength((6 + 13 / 16) * 25.4, "in")).toBe("6 13/16");
+    expect(editableLength(13.478 * 25.4, "in")).toBe("13.478");
+    expect(editableLength(343, "in")).toBe("343 mm"); // 13.5039... in: neither a sixteenth nor 4 decimals
+    expect(editableLength(342.9, "mm")).toBe("342.9");
+    expect(editableLength(343, "mm")).toBe("343");
+  });
+
+  it("reads back to the stored value within 1/200 mm, in either unit (property)", () => {
+    const next = random(91);
+    for (let i = 0; i < 3000; i++) {
+      const value = 1 + next() * 3000;
+      const sixteenth = (Math.round(next() * 1600) * 25.4) / 16;
+      for (const v of [value, sixteenth, Math.round(value), Math.round(next() * 10_000) / 10_000 * 25.4 * 40]) {
+        if (v <= 0) continue;
+        expect(Math.abs(mm(editableLength(v, "in"), "in") - v)).toBeLessThanOrEqual(0.005 + 1e-9);
+        expect(Math.abs(mm(editableLength(v, "mm"), "mm") - v)).toBeLessThanOrEqual(0.005 + 1e-9);
+      }
+    }
   });
 });
