@@ -185,7 +185,7 @@ export function WriteupNumbersEditor({
       <h2 id="numbers-heading" className="text-step-2 font-semibold">Numbers for readers</h2>
       <p className="max-w-3xl text-ink-soft">
         Attach the cable you sized or the weight you moved: readers see the numbers, the drawing and the cautions under the
-        write-up, worked out by the same code as the tools. They appear with the write-up as soon as you attach them.
+        write-up, worked out by the same code as the tools. Like the text, they reach readers when the moderators publish this revision.
       </p>
       {calculations.length > 0 ? (
         <ul className="space-y-2" aria-label="Attached numbers">

@@ -2,6 +2,7 @@ import { diffWords } from "diff";
 import { data, Form, Link, useNavigation } from "react-router";
 import type { Route } from "./+types/review.$revisionId";
 import { CautionList } from "~/components/cautions";
+import { calculationName, WriteupCalculations } from "~/components/writeup-calculations";
 import { buttonClass, FieldError, FormMessage, inputClass } from "~/components/ui/field";
 import { db } from "~/db/index.server";
 import { cautionsFor } from "~/domain/cautions";
@@ -10,6 +11,8 @@ import { renderMarkdown } from "~/domain/markdown";
 import { writeupWarnings } from "~/domain/writeup-checks";
 import { CHECKLIST, DECISION_LABELS, DECISIONS, type Decision, STATE_LABELS } from "~/domain/writeup-lifecycle";
 import { decide, EditingError, getForReview } from "~/models/writeup-editing.server";
+import { compareRevisionCalculations } from "~/models/calculations.server";
+import { readerUnit } from "./reader-unit.server";
 import { env } from "~/services/env.server";
 import { kickOutbox } from "~/services/outbox-worker.server";
 import { redirectWithNotice, requirePermission } from "~/services/session.server";
@@ -34,7 +37,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const changes = previous
     ? diffWords(`${previous.title}\n\n${previous.summary}\n\n${previous.bodyMarkdown}`, `${r.title}\n\n${r.summary}\n\n${r.bodyMarkdown}`).map((p) => ({ value: p.value, added: !!p.added, removed: !!p.removed }))
     : null;
+  // The revision's numbers for readers, and what they add or take off against the published ones.
+  const numbers = await compareRevisionCalculations(db, r.id, previous?.id ?? null);
   return {
+    numbers: { list: numbers.numbers, added: numbers.numbers.filter((c) => c.added).map((c) => c.id), removed: numbers.removed },
+    unit: await readerUnit(request, moderator),
     revision: {
       id: r.id, number: r.number, status: r.status, title: r.title, summary: r.summary, systems: r.systems, zones: r.zones,
       appliesTo: describeHullRange({ from: r.hullFrom, to: r.hullTo }), parts: r.parts, html: renderMarkdown(r.bodyMarkdown).html,
@@ -76,7 +83,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function ReviewPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { revision: r, author, warnings, cautions, changes, previousNumber, decisions, ownWork } = loaderData;
+  const { revision: r, author, warnings, cautions, changes, previousNumber, decisions, ownWork, numbers, unit } = loaderData;
   const navigation = useNavigation();
   const errors: Record<string, string> = actionData?.errors ?? {};
   const values = actionData?.values;
@@ -102,6 +109,8 @@ export default function ReviewPage({ loaderData, actionData }: Route.ComponentPr
             </ul>
           </>
         )}
+        <WriteupCalculations calculations={numbers.list} unit={unit} added={previousNumber === null ? undefined : numbers.added}
+          intro="What readers will see under the write-up once this revision is published, worked out by Sistership from the author's figures." />
         {changes && (
           <section className="mt-10" aria-labelledby="changes-heading">
             <h2 id="changes-heading" className="text-step-1 font-semibold">Changes since the published revision {previousNumber}</h2>
@@ -111,6 +120,18 @@ export default function ReviewPage({ loaderData, actionData }: Route.ComponentPr
                 : c.removed ? <del key={i} className="bg-bootstripe-50 text-bootstripe-800">{c.value}</del>
                 : <span key={i}>{c.value}</span>)}
             </pre>
+            {numbers.added.length + numbers.removed.length > 0 ? (
+              <ul className="mt-3 space-y-1 text-step--1" aria-label="Changes to the numbers">
+                {numbers.list.filter((c) => numbers.added.includes(c.id)).map((c) => (
+                  <li key={`a${c.id}`}><ins className="bg-deep-100 no-underline">Numbers added: {calculationName(c)}</ins></li>
+                ))}
+                {numbers.removed.map((c) => (
+                  <li key={`r${c.id}`}><del className="bg-bootstripe-50 text-bootstripe-800">Numbers taken off: {calculationName(c)}</del></li>
+                ))}
+              </ul>
+            ) : (
+              <p className="mt-3 text-step--1 text-ink-soft">The numbers for readers are the same as in the published revision.</p>
+            )}
           </section>
         )}
       </article>

@@ -71,7 +71,7 @@ export async function action({ request }: Route.ActionArgs) {
     if (error instanceof EditingError) return data({ attachErrors: { writeupId: error.message } }, { status: error.status });
     throw error;
   }
-  return redirectWithNotice(request, `/my/writeups/${writeupId}`, "The cable run is attached: readers see it under the write-up.");
+  return redirectWithNotice(request, `/my/writeups/${writeupId}`, "The cable run is attached to your revision: readers see it under the write-up once the moderators publish it.");
 }
 
 export default function CableTool({ loaderData, actionData }: Route.ComponentProps) {

@@ -1,6 +1,7 @@
 // Numbers for readers: attaching a cable run or a weight move to a write-up from the editor, and
 // removing one, through the editor's route module against this file's database; who may do it;
-// and what the published page then shows. Also: the editor's address after a save or a send tells
+// and that they go through review like the text: the published page shows the published
+// revision's numbers, the review page a revision's own with what it adds and takes off. Also: the editor's address after a save or a send tells
 // the page to clear the copy kept on the device.
 import { sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -12,6 +13,8 @@ let published: typeof import("~/routes/writeup");
 let cableTool: typeof import("~/routes/tools.cable");
 let signIn: typeof import("~/routes/sign-in");
 let calculations: typeof import("~/models/calculations.server");
+let review: typeof import("~/routes/review.$revisionId");
+let editing: typeof import("~/models/writeup-editing.server");
 let domain: typeof import("~/domain/calculations");
 let appPool: { end(): Promise<void> };
 let DEMO_PASSWORD: string;
@@ -20,9 +23,10 @@ const args = (request: Request, params: Record<string, string> = {}) => ({ reque
 
 beforeAll(async () => {
   t = await appDatabase("template_seeded");
-  [editor, published, cableTool, signIn, calculations, domain] = await Promise.all([
+  [editor, published, cableTool, signIn, calculations, domain, review, editing] = await Promise.all([
     import("~/routes/my.writeups.$id"), import("~/routes/writeup"), import("~/routes/tools.cable"), import("~/routes/sign-in"),
-    import("~/models/calculations.server"), import("~/domain/calculations"),
+    import("~/models/calculations.server"), import("~/domain/calculations"), import("~/routes/review.$revisionId"),
+    import("~/models/writeup-editing.server"),
   ]);
   ({ DEMO_PASSWORD } = await import("../../scripts/seed-content"));
   appPool = (await import("~/db/index.server")).pool;
@@ -57,8 +61,15 @@ const cableFields = { intent: "calc-cable", label: "Tow vehicle plug to the trai
 let hal: string;
 let gareth: string;
 let joan: string;
+let nora: string; // a moderator
+const userIds = { hal: 0, nora: 0 };
 beforeAll(async () => {
-  [hal, gareth, joan] = await Promise.all([signInAs("hal.dunmore@example.com"), signInAs("gareth.lindqvist@example.com"), signInAs("joan.pettifer@example.org")]);
+  [hal, gareth, joan, nora] = await Promise.all([
+    signInAs("hal.dunmore@example.com"), signInAs("gareth.lindqvist@example.com"), signInAs("joan.pettifer@example.org"), signInAs("nora.pelling@example.org"),
+  ]);
+  const rows = (await t.db.execute<{ id: number; email: string }>(sql`select id, email from users where email in ('hal.dunmore@example.com', 'nora.pelling@example.org')`)).rows;
+  userIds.hal = rows.find((u) => u.email.startsWith("hal"))!.id;
+  userIds.nora = rows.find((u) => u.email.startsWith("nora"))!.id;
 });
 
 type Preview = { kind: string; preview: { calc: import("~/domain/calculations").Calculation; title: string } };
@@ -100,32 +111,127 @@ describe("a cable run, worked out and then attached", () => {
     expect(await calculations.listWriteupCalculations(t.db, id)).toHaveLength(0);
   });
 
-  it("the author attaches it; readers see it on the published page; the author removes it", async () => {
-    const id = await writeupId(TRAILER);
+  it("only the author attaches and removes it: not another member, not a moderator, not through another write-up", async () => {
+    const id = await writeupId(TRIM);
     const r = await post(id, hal, { ...cableFields, step: "attach" });
     expect(r.status).toBe(200);
     const attached = (r.data as { attached: number }).attached;
     const list = await calculations.listWriteupCalculations(t.db, id);
     expect(list.map((c) => [c.id, c.kind, c.title])).toEqual([[attached, "cable-run", cableFields.label]]);
 
-    const page = await settle(() => published.loader(args(getRequest(`/writeups/${TRAILER}`), { slug: TRAILER })));
-    expect((page.data as { calculations: { id: number }[] }).calculations.map((c) => c.id)).toEqual([attached]);
-
-    // Someone else can neither remove it nor add to this write-up.
-    const byOther = await post(id, gareth, { intent: "calc-remove", calculationId: String(attached) });
-    expect(byOther.status).toBe(404);
-    const addByOther = await post(id, gareth, { ...cableFields, step: "attach" });
-    expect(addByOther.status).toBe(404);
+    for (const other of [joan, gareth]) { // another member, and a moderator; neither wrote it
+      const byOther = await post(id, other, { intent: "calc-remove", calculationId: String(attached) });
+      expect(byOther.status).toBe(404);
+      const addByOther = await post(id, other, { ...cableFields, step: "attach" });
+      expect(addByOther.status).toBe(404);
+    }
     expect(await calculations.listWriteupCalculations(t.db, id)).toHaveLength(1);
 
     // Nor can the author remove it through another of their write-ups.
-    const wrongWriteup = await post(await writeupId(TRIM), hal, { intent: "calc-remove", calculationId: String(attached) });
+    const wrongWriteup = await post(await writeupId(TRAILER), hal, { intent: "calc-remove", calculationId: String(attached) });
     expect(wrongWriteup.status).toBe(404);
 
+    // Taken off in the revision that attached it, it is gone for good.
     const removed = await post(id, hal, { intent: "calc-remove", calculationId: String(attached) });
     expect(removed.status).toBe(200);
-    const after = await settle(() => published.loader(args(getRequest(`/writeups/${TRAILER}`), { slug: TRAILER })));
-    expect((after.data as { calculations: unknown[] }).calculations).toEqual([]);
+    expect(await calculations.listWriteupCalculations(t.db, id)).toEqual([]);
+    expect((await t.db.execute(sql`select 1 from writeup_calculations where id = ${attached}`)).rows).toHaveLength(0);
+  });
+});
+
+describe("numbers go through review like the text", () => {
+  const shownTo = async (slug: string) => {
+    const page = await settle(() => published.loader(args(getRequest(`/writeups/${slug}`), { slug })));
+    expect(page.status).toBe(200);
+    return (page.data as { calculations: { id: number }[] }).calculations.map((c) => c.id);
+  };
+  const revisions = async (id: number) =>
+    (await t.db.execute<{ id: number; number: number; status: string }>(sql`select id, number, status from writeup_revisions where writeup_id = ${id} order by number`)).rows;
+  const reviewPage = async (revisionId: number) => {
+    const r = await settle(() => review.loader(args(getRequest(`/review/${revisionId}`, nora), { revisionId: String(revisionId) })));
+    expect(r.status).toBe(200);
+    return r.data as { numbers: { list: { id: number; title: string; kind: string }[]; added: number[]; removed: { id: number; title: string }[] } };
+  };
+  const publish = (revisionId: number) => editing.decide(t.db, {
+    revisionId, moderatorId: userIds.nora, decision: "publish", reason: "", appUrl: "http://127.0.0.1:3000",
+    checklist: { cautions: true, measurements: true, photos: true, tone: true },
+  });
+
+  it("an attachment to a published write-up waits in a new revision until a moderator publishes it", async () => {
+    const id = await writeupId(TRAILER);
+    const before = await revisions(id);
+    expect(before.at(-1)?.status).toBe("published");
+    const r = await post(id, hal, { ...cableFields, step: "attach" });
+    expect(r.status).toBe(200);
+    const attached = (r.data as { attached: number }).attached;
+
+    // A new draft revision carries it; readers still see the published revision's (empty) set.
+    const after = await revisions(id);
+    expect(after).toHaveLength(before.length + 1);
+    expect(after.at(-1)).toMatchObject({ number: before.at(-1)!.number + 1, status: "draft" });
+    expect((await calculations.listWriteupCalculations(t.db, id)).map((c) => [c.id, c.revisionId])).toEqual([[attached, after.at(-1)!.id]]);
+    expect(await shownTo(TRAILER)).toEqual([]);
+
+    // Sent for review: the moderator's page shows the revision's numbers, this one marked as added.
+    await editing.submitForReview(t.db, id, userIds.hal);
+    expect(await shownTo(TRAILER)).toEqual([]);
+    const page = await reviewPage(after.at(-1)!.id);
+    expect(page.numbers.list.map((c) => [c.id, c.kind, c.title])).toEqual([[attached, "cable-run", cableFields.label]]);
+    expect(page.numbers.added).toEqual([attached]);
+    expect(page.numbers.removed).toEqual([]);
+
+    // Published: now readers see it.
+    await publish(after.at(-1)!.id);
+    expect(await shownTo(TRAILER)).toEqual([attached]);
+  });
+
+  it("a removal also waits: readers keep the numbers until the revision that takes them off is published", async () => {
+    const id = await writeupId(TRAILER);
+    const [attached] = await shownTo(TRAILER);
+    const before = await revisions(id);
+    const removed = await post(id, hal, { intent: "calc-remove", calculationId: String(attached) });
+    expect(removed.status).toBe(200);
+    const after = await revisions(id);
+    expect(after.at(-1)).toMatchObject({ number: before.at(-1)!.number + 1, status: "draft" });
+    expect(await calculations.listWriteupCalculations(t.db, id)).toEqual([]);
+    expect(await shownTo(TRAILER)).toEqual([attached]);
+    // The revision that was published keeps its set.
+    expect((await calculations.listRevisionCalculations(t.db, before.at(-1)!.id)).map((c) => c.id)).toEqual([attached]);
+
+    await editing.submitForReview(t.db, id, userIds.hal);
+    const page = await reviewPage(after.at(-1)!.id);
+    expect(page.numbers.list).toEqual([]);
+    expect(page.numbers.removed.map((c) => [c.id, c.title])).toEqual([[attached, cableFields.label]]);
+    expect(await shownTo(TRAILER)).toEqual([attached]);
+
+    await publish(after.at(-1)!.id);
+    expect(await shownTo(TRAILER)).toEqual([]);
+  });
+
+  it("numbers of a declined revision never reach readers", async () => {
+    const id = await writeupId(TRIM);
+    const r = await post(id, hal, { ...cableFields, label: "Anchor light feed", step: "attach" });
+    expect(r.status).toBe(200);
+    const rev = (await revisions(id)).at(-1)!;
+    await editing.submitForReview(t.db, id, userIds.hal);
+    await editing.decide(t.db, { revisionId: rev.id, moderatorId: userIds.nora, decision: "decline", reason: "These figures belong in a write-up about the anchor light.", checklist: {}, appUrl: "http://127.0.0.1:3000" });
+    expect(await shownTo(TRIM)).toEqual([]);
+    // The author works on from the declined text and its numbers: the next change makes a new revision.
+    const attached = (r.data as { attached: number }).attached;
+    expect((await calculations.listWriteupCalculations(t.db, id)).map((c) => c.id)).toEqual([attached]);
+    expect((await post(id, hal, { intent: "calc-remove", calculationId: String(attached) })).status).toBe(200);
+    expect((await revisions(id)).at(-1)).toMatchObject({ number: rev.number + 1, status: "draft" });
+    expect(await calculations.listWriteupCalculations(t.db, id)).toEqual([]);
+  });
+
+  it("the seeded numbers belong to the published revision", async () => {
+    const id = await writeupId("correcting-starboard-list-second-battery-mk2");
+    const [rev] = await revisions(id);
+    expect(rev.status).toBe("published");
+    const seeded = await calculations.listPublishedCalculations(t.db, id);
+    expect(seeded.map((c) => c.kind)).toEqual(["weight-move", "cable-run"]);
+    expect(seeded.every((c) => c.revisionId === rev.id)).toBe(true);
+    expect((await reviewPage(rev.id)).numbers.list.map((c) => c.id)).toEqual(seeded.map((c) => c.id));
   });
 });
 
