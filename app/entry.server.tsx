@@ -3,8 +3,10 @@ import { createReadableStreamFromReadable } from "@react-router/node";
 import { isbot } from "isbot";
 import type { RenderToPipeableStreamOptions } from "react-dom/server";
 import { renderToPipeableStream } from "react-dom/server";
-import { type EntryContext, type HandleDataRequestFunction, ServerRouter } from "react-router";
+import { type EntryContext, type HandleDataRequestFunction, type HandleErrorFunction, isRouteErrorResponse, ServerRouter } from "react-router";
 import { NonceContext } from "./components/nonce";
+import { isDatabaseUnavailable } from "./db/client.server";
+import { RETRY_AFTER_SECONDS } from "./services/db-outage.server";
 import { env } from "./services/env.server";
 import { startOutboxWorker } from "./services/outbox-worker.server";
 import { applySecurityHeaders, createNonce } from "./services/security-headers.server";
@@ -23,6 +25,7 @@ export default function handleRequest(
 ) {
   const nonce = createNonce();
   applySecurityHeaders(responseHeaders, nonce, production);
+  if (responseStatusCode === 503) responseHeaders.set("Retry-After", String(RETRY_AFTER_SECONDS));
   if (request.method.toUpperCase() === "HEAD") {
     return new Response(null, { status: responseStatusCode, headers: responseHeaders });
   }
@@ -66,5 +69,14 @@ export default function handleRequest(
 
 export const handleDataRequest: HandleDataRequestFunction = (response) => {
   applySecurityHeaders(response.headers, null, production);
+  if (response.status === 503) response.headers.set("Retry-After", String(RETRY_AFTER_SECONDS));
   return response;
+};
+
+// Errors the routes did not handle. A database that cannot be reached is answered with a 503 page
+// (app/services/db-outage.server.ts) and logged once by the pool, not once per request here.
+export const handleError: HandleErrorFunction = (error, { request }) => {
+  const cause = isRouteErrorResponse(error) && (error as { error?: unknown }).error ? (error as { error?: unknown }).error : error;
+  if (request.signal.aborted || isDatabaseUnavailable(cause)) return;
+  console.error(cause);
 };

@@ -3,15 +3,18 @@ import {
 } from "react-router";
 import type { Route } from "./+types/root";
 import "./app.css";
+import { DatabaseOutagePage } from "./components/db-outage";
 import { useNonce } from "./components/nonce";
 import { SiteFooter, SiteHeader } from "./components/site-chrome";
+import { isDatabaseOutage } from "./domain/db-outage";
 import { CLASS_NAME } from "./domain/hulls";
 import { can } from "./domain/permissions";
+import { databaseOutage } from "./services/db-outage.server";
 import { refuseUnreadableAddress } from "./services/form-body.server";
 import { originCheck } from "./services/origin-check.server";
 import { getUser } from "./services/session.server";
 
-export const middleware: Route.MiddlewareFunction[] = [originCheck, refuseUnreadableAddress];
+export const middleware: Route.MiddlewareFunction[] = [originCheck, refuseUnreadableAddress, databaseOutage];
 
 export async function loader({ request }: Route.LoaderArgs) {
   const url = new URL(request.url);
@@ -62,6 +65,9 @@ export default function App() {
 }
 
 export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  if (isRouteErrorResponse(error) && error.status === 503 && isDatabaseOutage(error.data)) {
+    return <DatabaseOutagePage outage={error.data} />;
+  }
   let title = "Something went wrong";
   let detail = "The page could not be shown. Try again in a moment; if it keeps happening, tell the class moderators.";
   if (isRouteErrorResponse(error)) {

@@ -109,7 +109,7 @@ export async function freePort() {
 }
 
 /** Runs a PostgreSQL binary as the postgres system user when we are root (initdb refuses root). */
-function pgCommand(bin, tool, args) {
+export function pgCommand(bin, tool, args) {
   const exe = path.join(bin, tool);
   return isRoot ? ["runuser", ["-u", "postgres", "--", exe, ...args]] : [exe, args];
 }
@@ -125,6 +125,13 @@ function tail(file, lines = 25) {
   } catch {
     return "(no log written)";
   }
+}
+
+/** pg_ctl's arguments that start the cluster in `dir` on 127.0.0.1:port (as startCluster does). */
+export function clusterStartArgs(dir, port) {
+  dir = path.resolve(dir);
+  const opts = `-c listen_addresses=127.0.0.1 -p ${port} -k ${dir} -c fsync=off -c full_page_writes=off`;
+  return ["-D", path.join(dir, "data"), "-l", path.join(dir, "postgres.log"), "-o", opts, "-w", "-t", "30", "start"];
 }
 
 /**
@@ -169,8 +176,7 @@ export async function startCluster({ bin, dir, port }) {
         "Stop whatever uses it, or pick another port with SISTERSHIP_PG_PORT.",
     );
   }
-  const opts = `-c listen_addresses=127.0.0.1 -p ${port} -k ${dir} -c fsync=off -c full_page_writes=off`;
-  const r = pgRun(bin, "pg_ctl", ["-D", data, "-l", logFile, "-o", opts, "-w", "-t", "30", "start"]);
+  const r = pgRun(bin, "pg_ctl", clusterStartArgs(dir, port));
   if (r.status !== 0) {
     throw new SetupError(
       `PostgreSQL would not start. The last lines of its log (${logFile}):\n\n${tail(logFile)}`,
