@@ -10,6 +10,7 @@ import { getIssued, recordPdf } from "~/models/digests.server";
 import { buildDigestPdf } from "~/services/digest-print.server";
 import { env } from "~/services/env.server";
 import { getObject, putObject } from "~/services/storage.server";
+import { readForm } from "~/services/form-body.server";
 
 const building = new Map<number, Promise<{ key: string; bytes: number; ms: number }>>();
 
@@ -17,7 +18,7 @@ async function findEdition(params: { year: string }, request: Request) {
   const year = Number(params.year);
   const raw = new URL(request.url).searchParams.get("edition");
   const edition = raw === null ? undefined : Number(raw);
-  if (!Number.isInteger(year) || (edition !== undefined && !Number.isInteger(edition))) throw data("No such digest.", { status: 404 });
+  if (!/^\d{4}$/.test(params.year) || (edition !== undefined && !(Number.isInteger(edition) && edition >= 1 && edition <= 1000))) throw data("No such digest.", { status: 404 });
   const issued = await getIssued(db, year, edition);
   if (!issued) throw data("No digest has been issued for that year.", { status: 404 });
   return { year, issued };
@@ -64,7 +65,7 @@ export async function loader({ params, request }: Route.LoaderArgs) {
 }
 
 export async function action({ params, request }: Route.ActionArgs) {
-  const form = await request.formData();
+  const form = await readForm(request);
   const url = new URL(request.url);
   const edition = form.get("edition");
   if (typeof edition === "string" && edition) url.searchParams.set("edition", edition);

@@ -21,7 +21,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const year = Number(params.year);
   const raw = new URL(request.url).searchParams.get("edition");
   const edition = raw === null ? undefined : Number(raw);
-  if (!Number.isInteger(year) || (edition !== undefined && !Number.isInteger(edition))) throw data("No such digest.", { status: 404 });
+  if (!/^\d{4}$/.test(params.year) || (edition !== undefined && !(Number.isInteger(edition) && edition >= 1 && edition <= 1000))) throw data("No such digest.", { status: 404 });
   const [issued, user, { notice, headers }] = await Promise.all([getIssued(db, year, edition), getUser(request), readNotice(request)]);
   if (!issued) throw data(`No digest has been issued for ${year}.`, { status: 404 });
   return data({

@@ -14,6 +14,7 @@ import { env } from "~/services/env.server";
 import { kickOutbox } from "~/services/outbox-worker.server";
 import { redirectWithNotice, requirePermission } from "~/services/session.server";
 import { unsubscribeUrl } from "~/services/unsubscribe.server";
+import { readForm } from "~/services/form-body.server";
 
 export function meta({ loaderData }: Route.MetaArgs) {
   return [{ title: loaderData ? `Preview: ${digestTitle(loaderData.snapshot.year, loaderData.snapshot.edition)} · Sistership` : "Digest preview · Sistership" }];
@@ -21,7 +22,7 @@ export function meta({ loaderData }: Route.MetaArgs) {
 
 function yearParam(params: { year: string }): number {
   const year = Number(params.year);
-  if (!Number.isInteger(year)) throw data("No such year.", { status: 404 });
+  if (!/^\d{4}$/.test(params.year)) throw data("No such year.", { status: 404 });
   return year;
 }
 
@@ -46,7 +47,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const year = yearParam(params);
   const draft = await getDraft(db, year);
   if (!draft) throw redirect("/secretary/digest");
-  const formData = await request.formData();
+  const formData = await readForm(request);
   const submission = parseWithZod(formData, { schema: issueSchema });
   if (submission.status !== "success") return data({ result: submission.reply(), error: null }, { status: 400 });
   const appUrl = env.APP_URL;

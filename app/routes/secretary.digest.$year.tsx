@@ -8,6 +8,7 @@ import { digestTitle, formatDigestDate, issueProblems } from "~/domain/digest";
 import { entrySchema, letterSchema } from "~/domain/digest-forms";
 import { addNewlyPublished, changeEntry, DigestError, discardDraft, getDraft, saveLetter } from "~/models/digests.server";
 import { readNotice, redirectWithNotice, requirePermission } from "~/services/session.server";
+import { readForm } from "~/services/form-body.server";
 
 export function meta({ loaderData }: Route.MetaArgs) {
   return [{ title: loaderData ? `${digestTitle(loaderData.year, loaderData.edition)}: draft · Sistership` : "Digest draft · Sistership" }];
@@ -15,7 +16,7 @@ export function meta({ loaderData }: Route.MetaArgs) {
 
 function yearParam(params: { year: string }): number {
   const year = Number(params.year);
-  if (!Number.isInteger(year)) throw data("No such year.", { status: 404 });
+  if (!/^\d{4}$/.test(params.year)) throw data("No such year.", { status: 404 });
   return year;
 }
 
@@ -49,7 +50,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const year = yearParam(params);
   const draft = await getDraft(db, year);
   if (!draft) throw redirect("/secretary/digest");
-  const formData = await request.formData();
+  const formData = await readForm(request);
   const intent = String(formData.get("intent") ?? "");
   try {
     if (intent === "letter") {

@@ -8,6 +8,7 @@ import { formatDigestDate } from "~/domain/digest";
 import { compileSchema } from "~/domain/digest-forms";
 import { compileDraft, DigestError, listDigestYears } from "~/models/digests.server";
 import { readNotice, requirePermission } from "~/services/session.server";
+import { readForm } from "~/services/form-body.server";
 
 export function meta() {
   return [{ title: "Yearly digest · Sistership" }];
@@ -32,7 +33,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export async function action({ request }: Route.ActionArgs) {
   const user = await requirePermission(request, "digest:compile");
-  const formData = await request.formData();
+  const formData = await readForm(request);
   const submission = parseWithZod(formData, { schema: compileSchema });
   if (submission.status !== "success") return data({ result: submission.reply() }, { status: 400 });
   try {
@@ -101,7 +102,7 @@ export default function SecretaryDigest({ loaderData, actionData }: Route.Compon
                             <Link to={`/secretary/digest/${y.year}`}>Edition {e.edition}: draft, go on editing</Link>
                           ) : (
                             <>
-                              <Link to={`/digest/${y.year}?edition=${e.edition}`}>Edition {e.edition}</Link>
+                              <Link to={`/digest/${y.year}?edition=${e.edition}`} className="underline">Edition {e.edition}</Link>
                               {" "}issued {e.issuedAt ? formatDigestDate(e.issuedAt) : ""}
                               {e.mailedCount !== null ? `, e-mailed to ${e.mailedCount} member${e.mailedCount === 1 ? "" : "s"}` : ", not e-mailed"}
                             </>

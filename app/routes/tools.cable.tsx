@@ -13,6 +13,7 @@ import { db } from "~/db/index.server";
 import { attachCalculation, EditingError, listWriteupsOpenForNumbers } from "~/models/writeup-editing.server";
 import { redirectWithNotice, requirePermission, requireUser } from "~/services/session.server";
 import { readerUnit } from "./reader-unit.server";
+import { readForm } from "~/services/form-body.server";
 
 const FIELDS = ["current", "length", "voltage", "drop", "insulation", "engineSpace", "label"] as const;
 
@@ -57,7 +58,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 /** POST: attach the answer to a write-up of the member's own; the editor checks who may. */
 export async function action({ request }: Route.ActionArgs) {
   const user = await requirePermission(request, "writeup:write");
-  const formData = await request.formData();
+  const formData = await readForm(request);
   const values: Record<string, string> = {};
   for (const [k, v] of formData.entries()) if (typeof v === "string") values[k] = v;
   const writeupId = Number(values.writeupId);
