@@ -89,6 +89,7 @@ export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
   }
   return (
     <section className="mx-auto max-w-2xl py-12">
+      <title>{`${title} · Sistership`}</title>
       <h1 className="text-step-3 font-semibold">{title}</h1>
       <p className="mt-4 whitespace-pre-wrap text-ink-soft">{detail}</p>
       <p className="mt-8">

@@ -350,12 +350,12 @@ function FacetList({
                   <span>{o.label}</span><span>{o.count}</span>
                 </span>
               ) : o.count === 0 ? (
-                <span className="flex justify-between gap-2 px-2 py-1 text-ink-soft/70" aria-label={label}>
+                <span className="flex justify-between gap-2 px-2 py-1 text-ink-soft" aria-label={label}>
                   <span>{o.label}</span><span>0</span>
                 </span>
               ) : (
                 <Link to={searchHref(params, { [param]: o.value })} aria-label={label} className="flex justify-between gap-2 rounded px-2 py-1 hover:bg-cloth-100">
-                  <span>{o.label}</span><span className="text-ink-soft">{o.count}</span>
+                  <span>{o.label}</span><span className="text-ink-soft">({o.count})</span>
                 </Link>
               )}
             </li>

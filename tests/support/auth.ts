@@ -5,8 +5,9 @@ import { BASE_URL } from "./browser";
 
 export { DEMO_PASSWORD };
 
-export async function signInAs(page: Page, email: string, password = DEMO_PASSWORD) {
-  await page.goto(`${BASE_URL}/sign-in`);
+/** `baseUrl`: a server of the test file's own (tests/support/app-server.ts); the run's server by default. */
+export async function signInAs(page: Page, email: string, password = DEMO_PASSWORD, baseUrl = BASE_URL) {
+  await page.goto(`${baseUrl}/sign-in`);
   await page.getByLabel("E-mail address").fill(email);
   await page.getByLabel("Password").fill(password);
   await Promise.all([page.waitForURL((url) => !url.pathname.startsWith("/sign-in")), page.getByRole("button", { name: "Sign in" }).click()]);
