@@ -28,6 +28,7 @@ export function DatabaseOutagePage({ outage }: { outage: DatabaseOutage }) {
       {outage.posted && shown.length > 0 ? (
         <form method="post" action={outage.action} className="mt-8 space-y-4 rounded-lg border border-cloth-300 bg-cloth-100 p-4">
           <h2 className="text-step-1 font-semibold">What you typed</h2>
+          {outage.secretsLeftOut ? <p className="text-step--1 text-ink-soft">{DATABASE_OUTAGE.secretsLeftOut}</p> : null}
           {hidden.map((f, i) => <input key={`h${i}`} type="hidden" name={f.name} value={f.value} />)}
           {shown.map((f, i) => (
             <div key={i}>

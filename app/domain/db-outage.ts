@@ -7,6 +7,7 @@ export const DATABASE_OUTAGE = {
   pageMessage: "Sistership cannot reach its database just now, so nothing was changed. Try again in a minute.",
   postedMessage:
     "Sistership cannot reach its database just now, so nothing you typed was saved. It is all below: send it again in a minute, or copy it somewhere safe.",
+  secretsLeftOut: "Passwords are not shown again here: type yours once more before you send the form.",
   apiMessage: "The database is not answering; nothing you sent was saved. Try again in a minute.",
 } as const;
 
@@ -18,6 +19,8 @@ export type DatabaseOutage = {
   action: string;
   /** What the form held, except passwords and tokens. */
   fields: { name: string; value: string }[];
+  /** True when a password or token field was left out of `fields`. */
+  secretsLeftOut: boolean;
   retryAfterSeconds: number;
 };
 

@@ -27,19 +27,24 @@ function copyOfForm(request: Request): Request | null {
   return request.clone();
 }
 
-async function fieldsOf(copy: Request | null): Promise<DatabaseOutage["fields"]> {
-  if (!copy) return [];
+async function fieldsOf(copy: Request | null): Promise<Pick<DatabaseOutage, "fields" | "secretsLeftOut">> {
+  const fields: DatabaseOutage["fields"] = [];
+  let secretsLeftOut = false;
+  if (!copy) return { fields, secretsLeftOut };
   try {
     const form = await copy.formData();
-    const fields: DatabaseOutage["fields"] = [];
     for (const [name, value] of form.entries()) {
-      if (typeof value !== "string" || SECRET_FIELD.test(name)) continue;
+      if (typeof value !== "string") continue;
+      if (SECRET_FIELD.test(name)) {
+        secretsLeftOut ||= value !== "";
+        continue;
+      }
       fields.push({ name, value });
     }
-    return fields;
   } catch {
-    return [];
+    // Not a readable form: nothing to give back.
   }
+  return { fields, secretsLeftOut };
 }
 
 /** The 503 answer: JSON for the API, otherwise the root error boundary's outage page. */
@@ -56,7 +61,7 @@ export async function outageResponse(request: Request, copy: Request | null = nu
     kind: DATABASE_OUTAGE.kind,
     posted: request.method !== "GET" && request.method !== "HEAD",
     action: `${url.pathname.replace(/\.data$/, "")}${url.search}`,
-    fields: await fieldsOf(copy),
+    ...(await fieldsOf(copy)),
     retryAfterSeconds: RETRY_AFTER_SECONDS,
   };
   return data(outage, { status: 503, headers });

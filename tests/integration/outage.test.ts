@@ -59,6 +59,7 @@ describe("a database outage", () => {
     expect(posted.text).toContain("Outage &lt;b&gt;test&lt;/b&gt;");
     expect(posted.text).not.toContain("never shown again 123");
     expect(posted.text).toContain('action="/sign-up"');
+    expect(posted.text).toContain("Passwords are not shown again");
 
     // Pages that need no database keep working.
     expect((await get("/safety")).status).toBe(200);
