@@ -4,7 +4,7 @@
 // over every space. Every function takes the db (or a transaction) first.
 import { and, asc, desc, eq, inArray, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
-import type pg from "pg";
+import pg from "pg";
 import type { Db } from "~/db/client.server";
 import * as s from "~/db/schema";
 import { consensusBySection, type BoxConsensus } from "~/domain/consensus";
@@ -585,21 +585,39 @@ export async function findFittingSpaces(db: DbOrTx, q: FitQuery): Promise<FitHit
   const { index, corners } = candidateRegions(q.item, q.orientation, q.clearanceMm, q.count);
   const column = index === "upright" ? "ss.fit_upright" : "ss.fit_any";
   const volume = `${column} ~> ${VOLUME_COORDINATE}`;
-  const hull = q.hull === null ? "true" : `${integer(q.hull)} between sp.hull_from and sp.hull_to`;
   const o = openingBounds(q.item, q.orientation, q.clearanceMm);
-  const sorted = `least(sp.opening_width_mm, sp.opening_height_mm) >= ${literal(o.small)}
-    and greatest(sp.opening_width_mm, sp.opening_height_mm) >= ${literal(o.large)}`;
-  const throughOpening = `(sp.opening_width_mm is null or sp.opening_height_mm is null or ${
-    o.up === null
-      ? sorted
-      : `case when sp.opening_face = 'top' then ${sorted}
-         else sp.opening_width_mm >= ${literal(o.small)} and sp.opening_height_mm >= ${literal(o.up)} end`
-  })`;
   const pool = poolOf(db);
 
-  /** Candidate sections from a volume on, smallest first: one ordered index scan per region. */
-  const read = async (filter: string, from: number, strict: boolean, limit: number | null) => {
-    const top = limit === null ? "" : `limit ${integer(limit)}`;
+  /**
+   * Candidate sections from a volume on, smallest first: one ordered index scan per region. The
+   * SQL text depends only on the shape of the search (index, number of regions, which side of the
+   * opening filter), so that on the pool it is a named prepared statement, planned once per
+   * connection; every number is a parameter. In a transaction, the numbers are written into the
+   * text instead (`literal`).
+   */
+  const read = async (through: boolean, from: number, strict: boolean, equal: number | null, limit: number | null) => {
+    const values: unknown[] = [];
+    const param = (value: number | boolean | null, type: "float8" | "int" | "bool") => {
+      if (!pool) return value === null ? `null::${type}` : typeof value === "boolean" ? String(value) : type === "int" ? integer(value) : literal(value);
+      values.push(value);
+      return `$${values.length}::${type}`;
+    };
+    const fromP = param(from, "float8");
+    const strictP = param(strict, "bool");
+    const equalP = param(equal, "float8");
+    const hullP = param(q.hull, "int");
+    const small = param(o.small, "float8");
+    const large = param(o.large, "float8");
+    const up = o.up === null ? null : param(o.up, "float8");
+    const limitP = param(limit, "int");
+    const sorted = `least(sp.opening_width_mm, sp.opening_height_mm) >= ${small}
+      and greatest(sp.opening_width_mm, sp.opening_height_mm) >= ${large}`;
+    const passes = `(sp.opening_width_mm is null or sp.opening_height_mm is null or ${
+      up === null
+        ? sorted
+        : `case when sp.opening_face = 'top' then ${sorted}
+           else sp.opening_width_mm >= ${small} and sp.opening_height_mm >= ${up} end`
+    })`;
     const scans = corners.map((corner) => `(
         select ss.space_id, ss.position, ss.label, sp.slug, sp.name, sp.zone_slug, z.name as zone_name,
                sp.hull_from, sp.hull_to, ${volume} as volume,
@@ -610,37 +628,33 @@ export async function findFittingSpaces(db: DbOrTx, q: FitQuery): Promise<FitHit
           from space_sections ss
           join spaces sp on sp.id = ss.space_id
           join zones z on z.slug = sp.zone_slug
-         where ${column} <@ cube(array[${[...corner, from].map(literal).join(", ")}],
-                                  array[${[UNBOUNDED, UNBOUNDED, UNBOUNDED, UNBOUNDED].map(literal).join(", ")}])
-           and ${strict ? `${volume} > ${literal(from)}` : "true"}
-           and ${hull} and ${filter}
-         order by ${volume} ${top})`);
-    const select = scans.length === 1 ? scans[0] : `select * from (${scans.join(" union all ")}) rows order by volume ${top}`;
-    return run(select);
-  };
-
-  /** One page: in one simple-protocol query on the pool, or within the caller's transaction. */
-  const run = async (select: string): Promise<CandidateRow[]> => {
-    const settings = "select set_config('enable_bitmapscan', 'off', true), set_config('enable_sort', 'off', true)";
+         where ${column} <@ cube(array[${corner.map((c) => param(c, "float8")).join(", ")}, ${fromP}],
+                                  array[${UNBOUNDED}::float8, ${UNBOUNDED}::float8, ${UNBOUNDED}::float8, coalesce(${equalP}, ${UNBOUNDED}::float8)])
+           and (not ${strictP} or ${volume} > ${fromP})
+           and (${equalP} is null or ${volume} = ${equalP})
+           and (${hullP} is null or ${hullP} between sp.hull_from and sp.hull_to)
+           and ${through ? passes : `not ${passes}`}
+         order by ${volume} limit ${limitP})`);
+    const text = scans.length === 1 ? scans[0] : `select * from (${scans.join(" union all ")}) rows order by volume limit ${limitP}`;
     if (pool) {
-      const results = (await pool.query(`${settings}; ${select}`)) as unknown as pg.QueryResult<CandidateRow>[];
-      return results[1].rows;
+      const name = `fit_${index}_${corners.length}_${through ? "through" : "not_through"}_${o.up === null ? "sorted" : "faces"}`;
+      return (await fitPool(pool).query<CandidateRow>({ name, text, values })).rows;
     }
-    // In a transaction: the settings last only to the savepoint's end.
+    // In a transaction: the planner settings last only to the savepoint's end.
     await db.execute(sql.raw("savepoint fit_search"));
-    await db.execute(sql.raw(settings));
-    const result = await db.execute<CandidateRow>(sql.raw(select));
+    await db.execute(sql.raw(`select ${PLANNER_SETTINGS.map(([k, v]) => `set_config('${k}', '${v}', true)`).join(", ")}`));
+    const result = await db.execute<CandidateRow>(sql.raw(text));
     await db.execute(sql.raw("rollback to savepoint fit_search"));
     return result.rows;
   };
 
   /** The candidates in order of volume (ties by space and section), a page at a time. */
-  async function* pages(filter: string): AsyncGenerator<CandidateRow[]> {
+  async function* pages(through: boolean): AsyncGenerator<CandidateRow[]> {
     let from = 0;
     let strict = false;
     let size = Math.max(32, Math.min(q.limit, MAX_PAGE) + 8);
     for (;;) {
-      const rows = await read(filter, from, strict, size);
+      const rows = await read(through, from, strict, null, size);
       if (rows.length < size) {
         yield sortRows(rows);
         return;
@@ -656,7 +670,7 @@ export async function findFittingSpaces(db: DbOrTx, q: FitQuery): Promise<FitHit
         yield sortRows(below);
         [from, strict] = [last, false];
       } else {
-        yield sortRows(await read(`${filter} and ${volume} = ${literal(last)}`, last, false, null));
+        yield sortRows(await read(through, last, false, last, null));
         [from, strict] = [last, true];
       }
       size = Math.min(size * 2, MAX_PAGE);
@@ -683,11 +697,11 @@ export async function findFittingSpaces(db: DbOrTx, q: FitQuery): Promise<FitHit
     }
   };
   search: {
-    for await (const rows of pages(throughOpening)) {
+    for await (const rows of pages(true)) {
       take(rows);
       if (outright >= q.limit) break search;
     }
-    for await (const rows of pages(`not ${throughOpening}`)) {
+    for await (const rows of pages(false)) {
       take(rows);
       if (settled.size >= q.limit) break search;
     }
@@ -724,6 +738,42 @@ function rank(q: FitQuery, candidates: Candidate[]) {
 
 function sortRows(rows: CandidateRow[]): CandidateRow[] {
   return rows.sort((x, y) => x.volume - y.volume || x.space_id - y.space_id || x.position - y.position);
+}
+
+/**
+ * The planner settings of the fit search. The planner cannot estimate how many sections a cube
+ * containment matches (it assumes a thousandth) and would read every candidate with a bitmap scan
+ * and sort them; without bitmap scans and sorts it reads the GiST index in order of volume and
+ * stops at the limit.
+ */
+const PLANNER_SETTINGS = [["enable_bitmapscan", "off"], ["enable_sort", "off"]] as const;
+
+const fitPools = new WeakMap<pg.Pool, pg.Pool>();
+
+/**
+ * A small pool beside the app's, to the same database, whose connections start with the fit
+ * search's planner settings (the `options` startup parameter), so that each page of the search is
+ * one round trip of a prepared statement. Only the fit search uses it.
+ */
+function fitPool(pool: pg.Pool): pg.Pool {
+  let fit = fitPools.get(pool);
+  if (!fit) {
+    const base = (pool as unknown as { options: pg.PoolConfig }).options;
+    const settings = PLANNER_SETTINGS.map(([k, v]) => `-c ${k}=${v}`).join(" ");
+    fit = new pg.Pool({ ...base, max: Math.min(base.max ?? 10, 4), options: [base.options, settings].filter(Boolean).join(" ") });
+    fit.on("error", (err) => console.warn(`[db] fit search: idle client error: ${err.message}`));
+    fitPools.set(pool, fit);
+  }
+  return fit;
+}
+
+/** Closes the fit search's pool beside the app's (before the database goes, in scripts and tests). */
+export async function endFitSearchPool(db: DbOrTx): Promise<void> {
+  const pool = poolOf(db);
+  const fit = pool ? fitPools.get(pool) : undefined;
+  if (!fit || !pool) return;
+  fitPools.delete(pool);
+  await fit.end();
 }
 
 /** The pg Pool under the app's db (drizzle keeps it as `$client`; `Db` does not name it), or

@@ -209,7 +209,7 @@ export default function FitPage({ loaderData }: Route.ComponentProps) {
       <Form method="get" action="/fit" className="space-y-5 rounded-lg bg-cloth-100 p-4 sm:p-6" aria-label="The item to fit">
         <input type="hidden" name="unit" value={unit} />
         <div className="flex flex-wrap items-end justify-between gap-4">
-          <div className="min-w-0 flex-1">
+          <div className="min-w-0 flex-1 basis-64">
             <label htmlFor="fit-item" className="block font-medium">From the catalogue</label>
             <select id="fit-item" name="item" value={form.item} onChange={(e) => pick(e.target.value)} className={`mt-1 max-w-md ${inputClass}`}>
               <option value="">My own sizes</option>

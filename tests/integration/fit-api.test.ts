@@ -19,6 +19,8 @@ beforeAll(async () => {
   appPool = (await import("~/db/index.server")).pool;
 });
 afterAll(async () => {
+  const { db } = await import("~/db/index.server");
+  await (await import("~/models/spaces.server")).endFitSearchPool(db);
   await appPool?.end();
   await t?.drop();
 });

@@ -2,7 +2,7 @@ import { sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as s from "~/db/schema";
 import { rankSpaces, type Box, type Orientation } from "~/domain/fit";
-import { addMeasurement, asFitSpace, findFittingSpaces, getSpace, listSpaces, type FitQuery, type SpaceSummary } from "~/models/spaces.server";
+import { addMeasurement, asFitSpace, endFitSearchPool, findFittingSpaces, getSpace, listSpaces, type FitQuery, type SpaceSummary } from "~/models/spaces.server";
 import { createTestDatabase } from "../support/db";
 import { mainForFit, medianOf, readSeedSpaces } from "../support/seed-spaces";
 
@@ -13,7 +13,10 @@ let t: Awaited<ReturnType<typeof createTestDatabase>>;
 beforeAll(async () => {
   t = await createTestDatabase("template_seeded");
 });
-afterAll(async () => t?.drop());
+afterAll(async () => {
+  if (t) await endFitSearchPool(t.db);
+  await t?.drop();
+});
 
 /** Deterministic pseudo-random numbers (mulberry32), so a failing case can be replayed. */
 function random(seed: number): () => number {
@@ -225,5 +228,5 @@ describe("the candidate filter in PostgreSQL (cube, GiST) against checking every
       ...Array.from({ length: 30 }, () => ({ ...randomQuery(next, 1000), item: { length: 60, width: 50, height: 40 } })),
     ];
     expect(await compare(queries)).toBeGreaterThan(80);
-  });
+  }, 60_000); // 800 inserts and 150 searches on a machine shared with other test runs
 });
