@@ -73,7 +73,7 @@ describe("a member corrects and removes a measurement on a phone", () => {
     await hydrated(p, "edit-measurement-form");
     const form = p.locator("#edit-measurement-form");
     // The form holds what was stored, as it can be typed again.
-    expect(await form.getByLabel("Length (fore and aft)").inputValue()).toBe("5 1/4 in");
+    expect(await form.getByLabel("Length (fore and aft)").inputValue()).toBe("5 1/4");
     expect(await form.getByLabel("Part of the space you measured").inputValue()).toBe("1");
 
     await form.getByLabel("Length (fore and aft)").fill("5 1/2 x");
@@ -83,7 +83,7 @@ describe("a member corrects and removes a measurement on a phone", () => {
     const lengthError = form.locator("[role=alert]").filter({ hasText: /./ }).first();
     await lengthError.waitFor();
     expect(await form.getByLabel("Length (fore and aft)").getAttribute("aria-invalid")).toBe("true");
-    expect(await form.getByLabel("Width (athwartships)").inputValue()).toBe("8 1/8 in");
+    expect(await form.getByLabel("Width (athwartships)").inputValue()).toBe("8 1/8");
     expect(await form.getByLabel("Why (optional)").inputValue()).toBe("Measured again along the bottom");
     await p.screenshot({ path: screenshotPath("measurement-edit-phone-error") });
 
