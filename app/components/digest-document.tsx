@@ -1,7 +1,7 @@
 // The yearly digest as one document: the web page (/digest/:year, the secretary's preview) and the
 // PDF print the same markup with the same style sheet (./digest-style.ts).
 import { cautionsFor } from "~/domain/cautions";
-import { digestTitle, formatDigestDate, type DigestEntry, type DigestSnapshot } from "~/domain/digest";
+import { DIGEST_LARGE_ENTRIES, digestTitle, formatDigestDate, type DigestEntry, type DigestSnapshot } from "~/domain/digest";
 import { layoutBarChart } from "~/domain/digest-chart";
 import { formatDimensions } from "~/domain/units";
 
@@ -127,7 +127,7 @@ export function DigestDocument({ snapshot, className, appUrl, photoSrc, draft = 
   const cautions = cautionsFor(snapshot.sections.map((x) => x.slug));
   const title = digestTitle(snapshot.year, snapshot.edition);
   return (
-    <div className="dg">
+    <div className={included > DIGEST_LARGE_ENTRIES ? "dg dg-large" : "dg"}>
       <section className="dg-cover" aria-label="Cover">
         {draft && <p className="dg-draft-mark">Draft, not issued: what members will receive once the secretary issues it.</p>}
         <div className="dg-cover-band">

@@ -156,5 +156,16 @@ export const DIGEST_CSS = String.raw`
   .dg-safety li { break-inside: avoid; }
   .dg-letter-body p, .dg-summary { orphans: 3; widows: 3; }
   .dg-draft-mark { display: block; }
+  /* A busy year: a denser page, so the volume stays something one can print. */
+  .dg-large { font-size: 9pt; line-height: 1.35; }
+  .dg-large .dg-entry { padding: 0.45rem 0 0.5rem; gap: 0.7rem; }
+  .dg-large .dg-entry.dg-has-photo { grid-template-columns: 5.5rem minmax(0, 1fr); }
+  .dg-large .dg-thumb { width: 5.5rem; height: 4.1rem; }
+  .dg-large .dg-entry h3 { font-size: 10.5pt; }
+  .dg-large .dg-summary { font-size: 9pt; margin-top: 0.2rem; }
+  .dg-large .dg-measures { margin-top: 0.3rem; font-size: 7.5pt; }
+  .dg-large .dg-measures caption { display: none; }
+  .dg-large .dg-measures th, .dg-large .dg-measures td { padding: 0.1rem 0.5rem 0.1rem 0; }
+  .dg-large .dg-entry-foot { margin-top: 0.25rem; }
 }
 `;

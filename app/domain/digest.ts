@@ -63,6 +63,13 @@ export const UNFILED_SECTION = { slug: "", name: "Other work" } as const;
 /** How many write-ups the "done on the most boats" figure names. */
 export const MOST_DONE_TOO_LIMIT = 5;
 
+/**
+ * Beyond this many write-ups a digest is a reference volume: set more densely in print, and its
+ * PDF is not tagged for screen readers (tagging a few hundred pages costs Chromium about 40 %
+ * more time and triples the file; the web page is there for screen readers).
+ */
+export const DIGEST_LARGE_ENTRIES = 150;
+
 /** One entry of a draft as the secretary arranges it. */
 export type DraftEntry = { writeupId: number; sectionSlug: string; position: number; included: boolean };
 
@@ -190,10 +197,12 @@ export function inBatches<T>(items: readonly T[], size: number): T[][] {
   return batches;
 }
 
+// One formatter for every date (toLocaleDateString would build a new one per call).
+const DATE_FORMAT = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
+
 /** "14 May 2025": dates in the digest, in UTC so that the server's zone does not move them. */
 export function formatDigestDate(iso: string | Date): string {
-  const d = iso instanceof Date ? iso : new Date(iso);
-  return d.toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
+  return DATE_FORMAT.format(iso instanceof Date ? iso : new Date(iso));
 }
 
 /**

@@ -5,9 +5,10 @@ import fs from "node:fs";
 import { createRequire } from "node:module";
 import path from "node:path";
 import { renderToStaticMarkup } from "react-dom/server";
+import sharp from "sharp";
 import { DigestDocument } from "~/components/digest-document";
 import { DIGEST_CSS } from "~/components/digest-style";
-import { digestTitle, type DigestSnapshot } from "~/domain/digest";
+import { DIGEST_LARGE_ENTRIES, digestTitle, type DigestSnapshot } from "~/domain/digest";
 import { escapeHtml } from "~/domain/digest-email";
 import { htmlToPdf } from "./pdf.server";
 import { getObject } from "./storage.server";
@@ -60,7 +61,11 @@ async function streamToBuffer(stream: ReadableStream<Uint8Array>): Promise<Buffe
   return Buffer.concat(chunks);
 }
 
-/** The thumbnails the digest shows, fetched from the photo store as data: URLs (missing ones are skipped). */
+/**
+ * The thumbnails the digest shows, fetched from the photo store as data: URLs (missing ones are
+ * skipped). Printed about 1.5 in wide, so they are made 300 px wide (200 dpi) JPEGs, which
+ * Chromium embeds in the PDF as they are instead of re-compressing decoded pixels.
+ */
 export async function loadThumbnails(snapshot: DigestSnapshot, fetchObject = getObject): Promise<Map<string, string>> {
   const keys = [...new Set(snapshot.sections.flatMap((x) => x.entries.map((e) => e.thumbnailKey)).filter((k): k is string => !!k))];
   const photos = new Map<string, string>();
@@ -70,7 +75,9 @@ export async function loadThumbnails(snapshot: DigestSnapshot, fetchObject = get
       const object = await fetchObject(key).catch(() => null);
       if (!object) return;
       const bytes = await streamToBuffer(object.body);
-      photos.set(key, `data:${object.contentType};base64,${bytes.toString("base64")}`);
+      const jpeg = await sharp(bytes).resize({ width: 300, withoutEnlargement: true }).flatten({ background: "#ffffff" }).jpeg({ quality: 72 }).toBuffer()
+        .catch(() => null);
+      if (jpeg) photos.set(key, `data:image/jpeg;base64,${jpeg.toString("base64")}`);
     }));
   }
   return photos;
@@ -86,5 +93,6 @@ export function digestFooter(className: string, snapshot: DigestSnapshot): strin
 export async function buildDigestPdf(snapshot: DigestSnapshot, options: { className: string; appUrl: string; fetchObject?: typeof getObject }): Promise<Uint8Array> {
   const photos = await loadThumbnails(snapshot, options.fetchObject);
   const html = digestPrintHtml(snapshot, { ...options, photos });
-  return htmlToPdf(html, { footerTemplate: digestFooter(options.className, snapshot) });
+  const entries = snapshot.sections.reduce((n, x) => n + x.entries.length, 0);
+  return htmlToPdf(html, { footerTemplate: digestFooter(options.className, snapshot), tagged: entries <= DIGEST_LARGE_ENTRIES });
 }

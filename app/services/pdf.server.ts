@@ -42,7 +42,8 @@ function closeWhenIdle() {
 export type PdfOptions = {
   /** Small print at the foot of every page; Chromium fills <span class="pageNumber"> and "totalPages". */
   footerTemplate?: string;
-  title?: string;
+  /** A tagged (accessible) PDF, with its structure for screen readers. Default true. */
+  tagged?: boolean;
 };
 
 /** Prints an HTML document to PDF bytes (page size and margins from its @page rule). */
@@ -53,6 +54,8 @@ export async function htmlToPdf(html: string, options: PdfOptions = {}): Promise
     const context = await b.newContext({ javaScriptEnabled: false, offline: true });
     try {
       const page = await context.newPage();
+      // Laid out for print from the start, so Chromium does not lay the document out twice.
+      await page.emulateMedia({ media: "print" });
       // Nothing is fetched: data: URLs only (they never reach the router).
       await page.route("**/*", (route) => route.abort());
       await page.setContent(html, { waitUntil: "load", timeout: 60_000 });
@@ -64,7 +67,7 @@ export async function htmlToPdf(html: string, options: PdfOptions = {}): Promise
         headerTemplate: "<span></span>",
         footerTemplate: options.footerTemplate ?? "<span></span>",
         outline: true,
-        tagged: true,
+        tagged: options.tagged ?? true,
       });
       return new Uint8Array(pdf);
     } finally {
