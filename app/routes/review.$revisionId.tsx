@@ -114,14 +114,8 @@ export default function ReviewPage({ loaderData, actionData }: Route.ComponentPr
         {changes && (
           <section className="mt-10" aria-labelledby="changes-heading">
             <h2 id="changes-heading" className="text-step-1 font-semibold">Changes since the published revision {previousNumber}</h2>
-            <pre className="mt-2 whitespace-pre-wrap rounded-md border border-cloth-200 bg-white p-3 text-step--1">
-              {changes.map((c, i) =>
-                c.added ? <ins key={i} className="bg-deep-100 no-underline">{c.value}</ins>
-                : c.removed ? <del key={i} className="bg-bootstripe-50 text-bootstripe-800">{c.value}</del>
-                : <span key={i}>{c.value}</span>)}
-            </pre>
             {numbers.added.length + numbers.removed.length > 0 ? (
-              <ul className="mt-3 space-y-1 text-step--1" aria-label="Changes to the numbers">
+              <ul className="mt-2 space-y-1 text-step--1" aria-label="Changes to the numbers">
                 {numbers.list.filter((c) => numbers.added.includes(c.id)).map((c) => (
                   <li key={`a${c.id}`}><ins className="bg-deep-100 no-underline">Numbers added: {calculationName(c)}</ins></li>
                 ))}
@@ -130,8 +124,14 @@ export default function ReviewPage({ loaderData, actionData }: Route.ComponentPr
                 ))}
               </ul>
             ) : (
-              <p className="mt-3 text-step--1 text-ink-soft">The numbers for readers are the same as in the published revision.</p>
+              <p className="mt-2 text-step--1 text-ink-soft">The numbers for readers are the same as in the published revision.</p>
             )}
+            <pre className="mt-2 whitespace-pre-wrap rounded-md border border-cloth-200 bg-white p-3 text-step--1">
+              {changes.map((c, i) =>
+                c.added ? <ins key={i} className="bg-deep-100 no-underline">{c.value}</ins>
+                : c.removed ? <del key={i} className="bg-bootstripe-50 text-bootstripe-800">{c.value}</del>
+                : <span key={i}>{c.value}</span>)}
+            </pre>
           </section>
         )}
       </article>
