@@ -8,13 +8,14 @@
 // over HTTP on loopback. Prints p50/p95/p99 and the ratios. Targets: search p95 at most 30 ms, at
 // least 20 times faster than the baseline, at most 3 times the floor.
 //
-//   npx tsx scripts/bench-search.ts [--writeups=100000] [--spaces=20000] [--queries=1000] [--no-http]
+//   npx tsx scripts/bench-search.ts [--writeups=100000] [--spaces=20000] [--queries=1000] [--no-http] [--no-baseline] [--slowest] [--list-queries]
 //
 // With DATABASE_URL set, the database is made on that server (the role needs CREATEDB);
-// otherwise a PostgreSQL cluster of its own is started in a temporary folder.
+// otherwise a PostgreSQL cluster of its own is started in a temporary folder. On a server of
+// DATABASE_URL, `--keep` only generates the content and keeps its database (to read query plans
+// with EXPLAIN), and `--database=<name>` measures on such a database instead of generating one.
 import { randomBytes } from "node:crypto";
 import fs from "node:fs";
-import os from "node:os";
 import path from "node:path";
 import { spawn } from "node:child_process";
 import { sql } from "drizzle-orm";
@@ -25,66 +26,26 @@ import { createDb } from "../app/db/client.server";
 import { renderMarkdown } from "../app/domain/markdown";
 import { queryWords } from "../app/domain/search";
 import { splitFrontMatter } from "./seed-content";
-import { ensurePostgres, freePort, startCluster } from "./lib/setup.mjs";
+import { argNumber, benchServer, figure, percentile, random, type Target } from "./lib/bench-kit";
+import { freePort } from "./lib/setup.mjs";
 
-const arg = (name: string, fallback: number) => {
-  const found = process.argv.find((a) => a.startsWith(`--${name}=`));
-  return found ? Number(found.split("=")[1]) : fallback;
-};
-const WRITEUPS = arg("writeups", 100_000);
-const SPACES = arg("spaces", 20_000);
-const QUERIES = arg("queries", 1000);
+const WRITEUPS = argNumber("writeups", 100_000);
+const SPACES = argNumber("spaces", 20_000);
+const QUERIES = argNumber("queries", 1000);
 const WARM_UP = 100;
 const HTTP = !process.argv.includes("--no-http");
+const BASELINE = !process.argv.includes("--no-baseline");
+/** On the server of DATABASE_URL: generate, keep the database and stop; or measure on a kept one. */
+const KEEP = process.argv.includes("--keep") && Boolean(process.env.DATABASE_URL);
+const REUSE = process.env.DATABASE_URL ? (process.argv.find((a) => a.startsWith("--database="))?.split("=")[1] ?? null) : null;
 const ROOT = path.resolve(import.meta.dirname, "..");
 const SEED = path.join(ROOT, "content-seed");
 const MM_PER_IN = 25.4; // exact (NIST Handbook 44, Appendix C)
 
 type Db = ReturnType<typeof createDb>["db"];
 
-/** Deterministic pseudo-random numbers (mulberry32): the same content and queries on every run. */
-function random(seed: number): () => number {
-  return () => {
-    seed = (seed + 0x6d2b79f5) | 0;
-    let x = Math.imul(seed ^ (seed >>> 15), 1 | seed);
-    x = (x + Math.imul(x ^ (x >>> 7), 61 | x)) ^ x;
-    return ((x ^ (x >>> 14)) >>> 0) / 4294967296;
-  };
-}
 const rnd = random(7);
 const pick = <T>(list: readonly T[], r = rnd) => list[Math.floor(r() * list.length)];
-
-function percentile(sorted: number[], p: number): number {
-  const i = Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1));
-  return sorted[i];
-}
-
-async function server(): Promise<{ adminUrl: string; stop: () => void }> {
-  if (process.env.DATABASE_URL) {
-    const url = new URL(process.env.DATABASE_URL);
-    url.pathname = "/postgres";
-    return { adminUrl: url.toString(), stop: () => {} };
-  }
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), "sistership-bench-"));
-  fs.chmodSync(dir, 0o755);
-  const bin = ensurePostgres();
-  const port = await freePort();
-  let cluster = await startCluster({ bin, dir, port });
-  // Memory for the data set, as a server would be given (the default of 128 MB is a
-  // development default): 1 GB of shared buffers, then a restart to take it.
-  const set = cluster.psql("alter system set shared_buffers = '1GB'");
-  if (set.status === 0) {
-    cluster.stop();
-    cluster = await startCluster({ bin, dir, port });
-  }
-  return {
-    adminUrl: cluster.url("postgres"),
-    stop: () => {
-      cluster.stop();
-      fs.rmSync(dir, { recursive: true, force: true });
-    },
-  };
-}
 
 // ---------------------------------------------------------------------------------------------
 // The content: sentences of the demo class's own write-ups, spaces and items, recombined, under
@@ -186,6 +147,8 @@ async function generate(db: Db, pool: pg.Pool, writeups: number, spaces: number)
         published: new Date(Date.UTC(2019 + Math.floor(rnd() * 8), Math.floor(rnd() * 12), 1 + Math.floor(rnd() * 28))).toISOString(),
         // What the tag triggers would write (names by the taxonomy's order), so they have nothing to change.
         tags: [...systems.map((s) => taxonomy.systems[s].name), ...zones.map((z) => taxonomy.zones[z].name)].join(" "),
+        // ... and the filter words (writeups.search_filters), in order.
+        filters: [...systems.map((s) => `system:${taxonomy.systems[s].slug}`), ...zones.map((z) => `zone:${taxonomy.zones[z].slug}`)].sort().join(","),
         systems: systems.map((s) => taxonomy.systems[s].slug),
         zones: zones.map((z) => taxonomy.zones[z].slug),
       };
@@ -193,11 +156,12 @@ async function generate(db: Db, pool: pg.Pool, writeups: number, spaces: number)
     const col = <K extends keyof (typeof rows)[number]>(k: K) => rows.map((r) => r[k]);
     // Arrays go to PostgreSQL as one parameter each (node-postgres sends a JavaScript array as an array).
     await pool.query(
-      `insert into writeups (slug, title, summary, body_text, status, author_id, hull_from, hull_to, published_at, search_tags)
-       select slug, title, summary, body, status::writeup_status, author, h_from, h_to, case when status = 'published' then published::timestamptz end, tags
-         from unnest($1::text[], $2::text[], $3::text[], $4::text[], $5::text[], $6::int[], $7::int[], $8::int[], $9::text[], $10::text[])
-              as x(slug, title, summary, body, status, author, h_from, h_to, published, tags)`,
-      [col("slug"), col("title"), col("summary"), col("body"), col("status"), col("author"), col("from"), col("to"), col("published"), col("tags")],
+      `insert into writeups (slug, title, summary, body_text, status, author_id, hull_from, hull_to, published_at, search_tags, search_filters)
+       select slug, title, summary, body, status::writeup_status, author, h_from, h_to, case when status = 'published' then published::timestamptz end, tags,
+              string_to_array(filters, ',')
+         from unnest($1::text[], $2::text[], $3::text[], $4::text[], $5::text[], $6::int[], $7::int[], $8::int[], $9::text[], $10::text[], $11::text[])
+              as x(slug, title, summary, body, status, author, h_from, h_to, published, tags, filters)`,
+      [col("slug"), col("title"), col("summary"), col("body"), col("status"), col("author"), col("from"), col("to"), col("published"), col("tags"), col("filters")],
     );
     const pairs = (key: "systems" | "zones") => rows.flatMap((r) => r[key].map((v) => [r.slug, v]));
     for (const [table, column, list] of [["writeup_systems", "system_slug", pairs("systems")], ["writeup_zones", "zone_slug", pairs("zones")]] as const) {
@@ -252,7 +216,10 @@ async function generate(db: Db, pool: pg.Pool, writeups: number, spaces: number)
     select count(*)::int as n from writeups w
      where w.search_tags <> concat_ws(' ',
        (select string_agg(s.name, ' ' order by s.sort_order, s.slug) from writeup_systems ws join systems s on s.slug = ws.system_slug where ws.writeup_id = w.id),
-       (select string_agg(z.name, ' ' order by z.sort_order, z.slug) from writeup_zones wz join zones z on z.slug = wz.zone_slug where wz.writeup_id = w.id))`)).rows;
+       (select string_agg(z.name, ' ' order by z.sort_order, z.slug) from writeup_zones wz join zones z on z.slug = wz.zone_slug where wz.writeup_id = w.id))
+        or not exists (select from (select array(select 'system:' || system_slug from writeup_systems where writeup_id = w.id
+                                                  union all select 'zone:' || zone_slug from writeup_zones where writeup_id = w.id) as f) x
+                        where x.f @> w.search_filters and w.search_filters @> x.f)`)).rows;
   if (wrong.n > 0) throw new Error(`${wrong.n} generated write-ups have tags other than the triggers would write`);
   await db.execute(sql`delete from search_vocabulary`);
   await db.execute(sql`
@@ -392,19 +359,26 @@ async function timeHttp(url: string): Promise<number> {
   return ms;
 }
 
-function report(name: string, times: number[]) {
+/** p50, p95 and p99 of a list of times, printed as figures (`label` p50 ...). */
+function report(label: string, times: number[], p95Target?: Target) {
   const s = [...times].sort((a, b) => a - b);
-  const f = (ms: number) => `${ms.toFixed(2).padStart(8)} ms`;
-  console.log(`[bench]   ${name.padEnd(34)} p50 ${f(percentile(s, 50))}   p95 ${f(percentile(s, 95))}   p99 ${f(percentile(s, 99))}`);
-  return { p50: percentile(s, 50), p95: percentile(s, 95), p99: percentile(s, 99) };
+  const r = { p50: percentile(s, 50), p95: percentile(s, 95), p99: percentile(s, 99) };
+  figure(`${label} p50`, r.p50, "ms");
+  figure(`${label} p95`, r.p95, "ms", p95Target);
+  figure(`${label} p99`, r.p99, "ms");
+  return r;
 }
 
 async function main() {
-  const { adminUrl, stop } = await server();
-  const name = `bench_search_${randomBytes(4).toString("hex")}`;
+  if (process.argv.includes("--list-queries")) {
+    console.log(queries().join("\n"));
+    return;
+  }
+  const { adminUrl, stop } = await benchServer({ sharedBuffers: "1GB" });
+  const name = REUSE ?? `bench_search_${randomBytes(4).toString("hex")}`;
   const admin = new pg.Client({ connectionString: adminUrl });
   await admin.connect();
-  await admin.query(`create database "${name}"`);
+  if (!REUSE) await admin.query(`create database "${name}"`);
   const url = new URL(adminUrl);
   url.pathname = `/${name}`;
   const databaseUrl = url.toString();
@@ -416,11 +390,13 @@ async function main() {
   try {
     await migrate(db, { migrationsFolder: path.join(ROOT, "drizzle") });
     const started = performance.now();
-    await generate(db, pool, WRITEUPS, SPACES);
+    if (!REUSE) await generate(db, pool, WRITEUPS, SPACES);
     const [counts] = (await db.execute<{ w: number; p: number; s: number; v: number }>(sql`
       select (select count(*) from writeups)::int as w, (select count(*) from writeups where status = 'published')::int as p,
              (select count(*) from spaces)::int as s, (select count(*) from search_vocabulary)::int as v`)).rows;
     console.log(`[bench] ${counts.w} write-ups (${counts.p} published), ${counts.s} spaces, a vocabulary of ${counts.v} words, generated in ${((performance.now() - started) / 1000).toFixed(1)} s`);
+
+    if (KEEP) return;
 
     const search = ((await import("../app/routes/api.search")) as unknown as { loader: Loader }).loader;
     const health = ((await import("../app/routes/api.health")) as unknown as { loader: Loader }).loader;
@@ -430,6 +406,7 @@ async function main() {
     const at = (i: number) => list[i % list.length];
 
     const times = { search: [] as number[], baseline: [] as number[], floor: [] as number[] };
+    const perQuery = new Map<string, number[]>();
     for (let i = 0; i < WARM_UP + QUERIES; i++) {
       const q = at(i);
       const a = await timeHandler(search, `http://bench.local/api/search?${q}`);
@@ -437,12 +414,18 @@ async function main() {
       if (i >= WARM_UP) {
         times.search.push(a);
         times.floor.push(c);
+        perQuery.set(q, [...(perQuery.get(q) ?? []), a]);
       }
     }
+    if (process.argv.includes("--slowest")) {
+      const slowest = [...perQuery].map(([q, t]) => ({ q, ms: Math.max(...t) })).sort((a, b) => b.ms - a.ms).slice(0, 15);
+      for (const x of slowest) console.log(`[bench]   slowest: ${x.ms.toFixed(1).padStart(7)} ms  ${decodeURIComponent(x.q.replace(/\+/g, " "))}`);
+    }
     // The baseline reads every row for every query (about a second each at 100,000 write-ups):
-    // each distinct query once, after a few to warm up.
+    // each distinct query once, after a few to warm up. `--no-baseline` leaves it out (while
+    // working on the search: the targets against it are then not printed).
     let totals = 0;
-    for (let i = 0; i < list.length + 5; i++) {
+    for (let i = 0; BASELINE && i < list.length + 5; i++) {
       const t0 = performance.now();
       const baseline = JSON.parse(await ilikeSearch(db, new URLSearchParams(at(i)))) as { total: number };
       if (i >= 5) {
@@ -450,14 +433,18 @@ async function main() {
         totals += baseline.total;
       }
     }
-    console.log(`[bench] server-side (the route's handler, in process; the baseline's ${list.length} queries match ${(totals / list.length).toFixed(0)} rows on average):`);
-    const s = report("search  GET /api/search", times.search);
-    const b = report("baseline  ILIKE, same rows", times.baseline);
-    const f = report("floor  GET /api/health", times.floor);
+    console.log(`[bench] server-side (the route's handler, in process${BASELINE ? `; the baseline's ${list.length} queries match ${(totals / list.length).toFixed(0)} rows on average` : ""}):`);
+    const s = report("search server-side", times.search, { op: "<=", value: 30 });
+    if (BASELINE) {
+      const b = report("baseline ILIKE server-side", times.baseline);
+      figure("baseline / search p95", b.p95 / s.p95, "x", { op: ">=", value: 20 });
+      figure("baseline / search p50", b.p50 / s.p50, "x");
+    }
+    const f = report("floor health server-side", times.floor);
+    figure("search / floor p95 server-side", s.p95 / f.p95, "x", { op: "<=", value: 3 });
+    figure("search / floor p50 server-side", s.p50 / f.p50, "x");
 
     http = await httpServer(databaseUrl);
-    let hs: ReturnType<typeof report> | null = null;
-    let hf: ReturnType<typeof report> | null = null;
     if (http && (await fetch(`${http.base}/api/search?q=battery`)).status !== 200) {
       console.log("[bench] the production build has no search API (build it again: npm run build): the HTTP figures are left out");
       http.stop();
@@ -473,22 +460,17 @@ async function main() {
           ht.floor.push(c);
         }
       }
-      console.log("[bench] over HTTP on loopback (the production build, keep-alive):");
-      hs = report("search  GET /api/search", ht.search);
-      hf = report("floor  GET /api/health", ht.floor);
+      console.log("[bench] over HTTP on loopback (the production build in build/, keep-alive):");
+      const hs = report("search over HTTP", ht.search);
+      const hf = report("floor health over HTTP", ht.floor);
+      figure("search / floor p95 over HTTP", hs.p95 / hf.p95, "x");
     }
-
-    const x = (v: number) => `${v.toFixed(1)}x`;
-    console.log("[bench] targets:");
-    console.log(`[bench]   search p95 <= 30 ms: ${s.p95.toFixed(2)} ms, ${s.p95 <= 30 ? "met" : "NOT met"}`);
-    console.log(`[bench]   at least 20x faster than the baseline (p95): ${x(b.p95 / s.p95)}, ${b.p95 / s.p95 >= 20 ? "met" : "NOT met"} (p50 ${x(b.p50 / s.p50)})`);
-    console.log(`[bench]   at most 3x the floor (p95), server-side: ${x(s.p95 / f.p95)}, ${s.p95 / f.p95 <= 3 ? "met" : "NOT met"}`);
-    if (hs && hf) console.log(`[bench]   at most 3x the floor (p95), over HTTP: ${x(hs.p95 / hf.p95)}, ${hs.p95 / hf.p95 <= 3 ? "met" : "NOT met"}`);
   } finally {
     http?.stop();
     await appPool?.end();
     await pool.end();
-    await admin.query(`drop database if exists "${name}" with (force)`);
+    if (KEEP || REUSE) console.log(`[bench] the database is kept: ${databaseUrl}`);
+    else await admin.query(`drop database if exists "${name}" with (force)`);
     await admin.end();
     stop();
   }

@@ -25,6 +25,14 @@ export const API_MAX_LIMIT = 100;
 export const MAX_OFFSET = 10_000;
 /** A query that finds fewer than this many results gets a "did you mean" when there is one. */
 export const FEW_RESULTS = 3;
+/**
+ * How many matches of each kind a search reads, counts and ranks
+ * (docs/decisions/0008-search-reads-a-bounded-set-of-matches.md). A search that matches more
+ * reads the first MATCH_CAP that the index gives, plus up to TITLE_CANDIDATES write-ups with its
+ * words in their title, ranks those, and says "more than" its total instead of counting on.
+ */
+export const MATCH_CAP = 100;
+export const TITLE_CANDIDATES = 25;
 
 /** The box a result must take (the fit check's "must fit"), in millimetres. */
 export type FitFilter = { box: Box; orientation: Orientation; unit: LengthUnit; text: string };
@@ -295,6 +303,17 @@ export function queryWords(q: string): string[] {
 /** The query with some words replaced (as they appear, whole words, any case), the rest as typed. */
 export function replaceWords(q: string, replacements: ReadonlyMap<string, string>): string {
   return q.replace(/[\p{L}\p{N}]+(?:['’-][\p{L}\p{N}]+)*/gu, (w) => replacements.get(w.toLowerCase()) ?? w);
+}
+
+/** The beginnings of the words typed (4 letters, lower case and capitalised), where a snippet should start (app/models/search.server.ts). */
+export function wordStarts(words: string): string[] {
+  const starts = new Set<string>();
+  for (const w of queryWords(words).slice(0, 6)) {
+    const p = w.length > 4 ? w.slice(0, 4) : w;
+    starts.add(p);
+    starts.add(p[0].toUpperCase() + p.slice(1));
+  }
+  return [...starts];
 }
 
 /** Any of the words: "battery box settee" -> "battery or box or settee" (websearch syntax). */

@@ -4,11 +4,14 @@
 // boost for write-ups that other boats have done too, snippets with ts_headline for the rows
 // shown only; facets with counts, type-ahead suggestions and "did you mean".
 // Every function takes the db (or a transaction) first.
+import { createHash } from "node:crypto";
 import { sql, type SQL } from "drizzle-orm";
+import { PgDialect } from "drizzle-orm/pg-core";
+import type pg from "pg";
 import { MAX_LIMIT } from "~/domain/fit-search";
 import { describeHullRange, LAST_HULL, VARIANTS, type HullRange } from "~/domain/hulls";
 import {
-  anyOfWords, FEW_RESULTS, HIT_END, HIT_START, queryWords, readHeadline, replaceWords, typeaheadWords,
+  anyOfWords, FEW_RESULTS, HIT_END, HIT_START, MATCH_CAP, queryWords, TITLE_CANDIDATES, wordStarts, readHeadline, replaceWords, typeaheadWords,
   type SearchFilters, type SearchKind, type SearchRequest, type Snippet,
 } from "~/domain/search";
 import type { Box } from "~/domain/units";
@@ -41,6 +44,28 @@ const DONE_TOO_BOOST = (writeupId: SQL) =>
 
 const HEADLINE_OPTIONS = `StartSel=${HIT_START}, StopSel=${HIT_END}, MaxFragments=2, MaxWords=28, MinWords=12, ShortWord=3, FragmentDelimiter=" … "`;
 
+/**
+ * The part of a document's text that a snippet is made from: ts_headline parses (and stems)
+ * every word it is given, which for 20 long write-ups costs more than the rest of the search, so
+ * it gets HEADLINE_WINDOW characters, from a little before the first place where the text has
+ * the beginning of one of the words typed (`starts`, lower case and capitalised; the text's start
+ * when none is there), cut at whole words. ts_headline then marks the real matches in it.
+ */
+const HEADLINE_WINDOW = 400;
+const HEADLINE_LEAD = 100;
+const headlineWindow = (text: SQL, starts: string[]) => {
+  const first = starts.length
+    ? sql`least(${sql.join(starts.map((p) => sql`nullif(strpos(x.t, ${p}::text), 0)`), sql`, `)})`
+    : sql`null::int`;
+  return sql`(
+  select case when length(t) <= ${HEADLINE_WINDOW}::int then t
+              else regexp_replace(regexp_replace(substr(t, a, ${HEADLINE_WINDOW}::int), '\\s\\S*$', ''),
+                                  case when a > 1 then '^\\S*\\s' else '^' end, '') end
+    from (select x.t, greatest(1, coalesce(${first}, 1) - ${HEADLINE_LEAD}::int) as a
+            from (select ${text} as t) x) y)`;
+};
+
+
 /** A document's text with the hit markers removed, so only the database's markers mark hits. */
 const unmarked = (text: SQL) => sql`translate(${text}, ${HIT_START + HIT_END}, '')`;
 
@@ -69,7 +94,10 @@ export type SpaceDetail = { type: "space"; zone: string; hulls: HullRange; measu
 export type ItemDetail = { type: "item"; box: Box; upright: boolean; battery: boolean };
 
 export type SearchAnswer = {
+  /** How many results; with `capped`, a lower bound: more than this many match (MATCH_CAP). */
   total: number;
+  /** More results match than were read and counted: narrow the search to see them all. */
+  capped: boolean;
   results: SearchResult[];
   /** A query with misspelt words replaced, when the query finds little and the replacement finds more. */
   suggestion: string | null;
@@ -95,12 +123,17 @@ export function tsqueryOf(words: string): SQL {
 
 type Branch = { kind: SearchKind; conditions: SQL[] };
 
-/** The filters as SQL, per kind; a kind a filter cannot apply to is left out (null). */
+/** A list of words as a PostgreSQL text[] literal (the words are slugs: letters, digits, hyphens). */
+const textArray = (list: string[]) => sql`${`{${list.map((x) => `"${x.replace(/["\\]/g, "")}"`).join(",")}}`}::text[]`;
+
+/** The filters as SQL, per kind; a kind a filter cannot apply to is left out. */
 function branches(f: SearchFilters, fitSpaceIds: number[] | null): Branch[] {
   const ids = fitSpaceIds === null ? null : sql`${`{${fitSpaceIds.join(",")}}`}::int[]`;
   const w: SQL[] = [sql`w.status = 'published'`];
-  if (f.system) w.push(sql`exists (select 1 from writeup_systems ws where ws.writeup_id = w.id and ws.system_slug = ${f.system})`);
-  if (f.zone) w.push(sql`exists (select 1 from writeup_zones wz where wz.writeup_id = w.id and wz.zone_slug = ${f.zone})`);
+  // System and zone are filter words of the write-up (writeups.search_filters, GIN-indexed), so
+  // PostgreSQL combines their index with the words' one instead of testing every match.
+  const tags = [...(f.system ? [`system:${f.system}`] : []), ...(f.zone ? [`zone:${f.zone}`] : [])];
+  if (tags.length) w.push(sql`w.search_filters @> ${textArray(tags)}`);
   if (f.hull) w.push(sql`w.hull_from <= ${f.hull.to}::int and w.hull_to >= ${f.hull.from}::int`);
   if (f.measured) w.push(sql`exists (select 1 from writeup_spaces x where x.writeup_id = w.id)`);
   if (f.year) w.push(sql`w.published_at >= make_timestamptz(${f.year}::int, 1, 1, 0, 0, 0, 'UTC') and w.published_at < make_timestamptz(${f.year + 1}::int, 1, 1, 0, 0, 0, 'UTC')`);
@@ -125,32 +158,29 @@ const TABLE: Record<SearchKind, { from: SQL; alias: SQL; dated: SQL; boost: SQL 
   item: { from: sql.raw("items i"), alias: sql.raw("i"), dated: sql.raw("null::timestamptz"), boost: null },
 };
 
-/**
- * How many matches of one kind are ranked. A query that matches more (a single common word over
- * a large collection) ranks the most recent RANK_WINDOW of them, so that its cost stays bounded;
- * the total still counts every match.
- */
-export const RANK_WINDOW = 2000;
 
 /**
- * The common table expressions of a search: per kind, `m_<kind>`, every row that matches the
- * words (if any) and the filters, and `hits`, the most recent RANK_WINDOW of those with their raw
- * score (before the done-too boost) and whether the boost applies. Without words, a box to fit
- * orders the spaces snuggest first (the fit check's order), each write-up just after the
- * snuggest space it used; otherwise write-ups more boats have done first.
+ * The common table expressions of a search, per kind: `m_<kind>`, the matches of the words (if
+ * any) and the filters, each with its raw score (before the done-too boost) and whether the
+ * boost applies; `c_<kind>`, the first MATCH_CAP + 1 of them. A materialized CTE is read only as
+ * far as its readers ask, so PostgreSQL stops reading the index's matches there. Then `hits`, the
+ * rows to rank, and `totals`. Without words, a box to fit orders the spaces snuggest first (the
+ * fit check's order), each write-up just after the snuggest space it used; otherwise write-ups
+ * more boats have done first.
  */
-function hitsSql(words: boolean, list: Branch[], fitIds: number[] | null): { ctes: SQL; total: SQL } {
+function hitsSql(words: boolean, list: Branch[], fitIds: number[] | null): SQL {
   const ids = fitIds === null ? null : sql`${`{${fitIds.join(",")}}`}::int[]`;
   if (!list.length) {
-    return {
-      ctes: sql`hits as (select null::text as type, null::int as id, null::float8 as raw, false as boosted, null::timestamptz as dated where false)`,
-      total: sql`0`,
-    };
+    return sql`hits as (select null::text as type, null::int as id, null::float8 as raw, false as boosted, null::timestamptz as dated where false),
+      totals as (select 0::int as total, false as capped)`;
   }
-  const matches: SQL[] = [];
-  const parts = list.map((b) => {
+  const ctes: SQL[] = [];
+  const hits: SQL[] = [];
+  const counts: SQL[] = [];
+  const cap = sql.raw(String(MATCH_CAP));
+  for (const b of list) {
     const t = TABLE[b.kind];
-    const m = sql.raw(`m_${b.kind}`);
+    const [m, c] = [sql.raw(`m_${b.kind}`), sql.raw(`c_${b.kind}`)];
     const conditions = [...b.conditions];
     let score: SQL = sql`0::float8`;
     let boosted = false;
@@ -166,16 +196,43 @@ function hitsSql(words: boolean, list: Branch[], fitIds: number[] | null): { cte
     } else if (t.boost) {
       score = sql`(${t.boost} - 1)`;
     }
-    const where = conditions.length ? sql.join(conditions, sql` and `) : sql`true`;
-    matches.push(sql`${m} as materialized (select ${t.alias}.id, ${t.dated} as dated from ${t.from} where ${where})`);
-    return sql`select ${b.kind}::text as type, ${t.alias}.id, (${score})::float8 as raw, ${sql.raw(boosted ? "true" : "false")} as boosted, ${t.dated} as dated
-                 from ${t.from}
-                where ${t.alias}.id in (select id from ${m} order by dated desc nulls last, id desc limit ${RANK_WINDOW})`;
-  });
-  return {
-    ctes: sql`${sql.join(matches, sql`, `)}, hits as materialized (${sql.join(parts, sql` union all `)})`,
-    total: sql.join(list.map((b) => sql`(select count(*) from ${sql.raw(`m_${b.kind}`)})`), sql` + `),
-  };
+    const select = (where: SQL[]) =>
+      sql`select ${t.alias}.id, ${t.dated} as dated, (${score})::float8 as raw, ${sql.raw(boosted ? "true" : "false")} as boosted
+            from ${t.from} where ${where.length ? sql.join(where, sql` and `) : sql`true`}`;
+    ctes.push(sql`${m} as materialized (${select(conditions)})`);
+    ctes.push(sql`${c} as materialized (select * from ${m} limit ${cap} + 1)`);
+    hits.push(sql`select ${b.kind}::text as type, id, raw, boosted, dated from (select * from ${c} limit ${cap}) ${sql.raw(`h_${b.kind}`)}`);
+    counts.push(sql`(select count(*) from ${c})`);
+    if (words && b.kind === "writeup") {
+      // When the matches are more than the cap: write-ups with the words in their title too
+      // (read through the title index, and only then).
+      ctes.push(sql`t_writeup as materialized (
+        ${select([...conditions, sql`to_tsvector(${CONFIG}, w.title) @@ (select query from q)`])})`);
+      hits.push(sql`select 'writeup'::text, id, raw, boosted, dated
+                      from (select * from t_writeup where (select count(*) from c_writeup) > ${cap} limit ${TITLE_CANDIDATES}) t
+                     where t.id not in (select id from (select id from c_writeup limit ${cap}) c)`);
+    }
+  }
+  return sql`${sql.join(ctes, sql`, `)},
+    hits as materialized (${sql.join(hits, sql` union all `)}),
+    totals as (select ${sql.join(counts.map((n) => sql`least(${n}, ${cap})`), sql` + `)} as total,
+                      ${sql.join(counts.map((n) => sql`${n} > ${cap}`), sql` or `)} as capped)`;
+}
+
+const dialect = new PgDialect();
+
+/**
+ * Runs a statement as a prepared statement of its connection, named after its text: PostgreSQL
+ * parses and plans it once per connection, not on every search (the words, filters' values,
+ * limit and offset are its parameters; the text differs only with the set of filters used).
+ * Inside a transaction (no pool at hand) it is run as an ordinary statement.
+ */
+async function prepared<T>(db: DbOrTx, query: SQL): Promise<T[]> {
+  const pool = (db as { $client?: pg.Pool }).$client;
+  if (!pool || typeof pool.query !== "function") return (await db.execute(query)).rows as T[];
+  const { sql: text, params } = dialect.sqlToQuery(query);
+  const name = `search_${createHash("sha1").update(text).digest("hex").slice(0, 20)}`;
+  return (await pool.query({ name, text, values: params as unknown[] })).rows as T[];
 }
 
 /** The spaces that take the box outright (the fit check's candidate query and exact check). */
@@ -187,132 +244,122 @@ async function fittingSpaceIds(db: DbOrTx, f: SearchFilters): Promise<number[] |
   return hits.filter((h) => h.verdict === "fits").map((h) => h.spaceId);
 }
 
-type Ranked = { type: SearchKind; id: number; score: number; total: number };
+type Row = {
+  total: number; capped: boolean; parsed: string; expanded: string; synonyms: string[];
+  type: SearchKind | null; id: number | null; score: number | null; info: Info | null;
+};
+type Info =
+  | { slug: string; title: string; headline: string | null; author: string; hull_number: number | null; published_at: string | null; hull_from: number; hull_to: number; done_too: number; systems: { slug: string; name: string }[] }
+  | { slug: string; title: string; headline: string | null; zone: string; hull_from: number; hull_to: number; measurements: number }
+  | { slug: string; title: string; headline: string | null; kind: string; length_mm: number; width_mm: number; height_mm: number; orientation: string };
+
+type Page = { rows: SearchResult[]; total: number; capped: boolean; analysis: QueryAnalysis | null };
 
 /**
- * The page of results and the total. Every match in the window (RANK_WINDOW) gets its rank; only
- * those that could reach the page with the largest possible boost (their rank times MAX_BOOST at
- * least the rank at the page's last place) have their done-too rows counted: the others stay
- * below the page anyway.
+ * One statement: the words parsed and expanded with the synonyms, the matches (at most MATCH_CAP
+ * of each kind, see hitsSql), their ranks, the done-too boost for those that could reach the page
+ * (their rank times MAX_BOOST at least the rank at the page's last place), and, for the rows
+ * shown only, their titles, details and snippets (ts_headline).
  */
-async function rank(db: DbOrTx, tsquery: string | null, f: SearchFilters, fitIds: number[] | null, limit: number, offset: number) {
-  const q = tsquery === null ? sql`select null::tsquery as query` : sql`select ${tsquery}::tsquery as query`;
-  const { ctes, total } = hitsSql(tsquery !== null, branches(f, fitIds), fitIds);
-  const r = await withIndexPlan(db, (tx) => tx.execute<Ranked & { total: number }>(sql`
-    with q as materialized (${q}),
-    ${ctes},
-    cut as (select raw from hits order by raw desc offset ${offset + limit - 1} limit 1),
+async function page(db: DbOrTx, words: string | null, f: SearchFilters, fitIds: number[] | null, limit: number, offset: number): Promise<Page> {
+  const hits = hitsSql(words !== null, branches(f, fitIds), fitIds);
+  const starts = words === null ? [] : wordStarts(words);
+  const headline = (text: SQL, fallback: SQL) =>
+    words === null
+      ? sql`left(${unmarked(fallback)}, 280)`
+      : sql`ts_headline(${CONFIG}, ${headlineWindow(unmarked(text), starts)}, (select query from q), ${HEADLINE_OPTIONS})`;
+  const analysis = words === null
+    ? sql`select ''::text as parsed, ''::text as expanded, '{}'::text[] as synonyms`
+    : sql`select p.parsed::text as parsed, e.query::text as expanded,
+                 coalesce((select array_agg(distinct s.term order by s.term)
+                             from search_synonym_rules r join search_synonyms s on s.group_name = r.group_name, marked m
+                            where strpos(m.marked, r.placeholder::text) > 0), '{}') as synonyms
+            from p, e`;
+  const rows = await prepared<Row>(db, sql`
+    with p as materialized (select ${words === null ? sql`null::tsquery` : sql`websearch_to_tsquery(${CONFIG}, ${words})`} as parsed),
+    e as materialized (select search_expand(p.parsed) as query from p),
+    marked as (select ts_rewrite(p.parsed, 'SELECT target, placeholder FROM search_synonym_rules ORDER BY n')::text as marked from p),
+    -- Only common words ("the", "under") leave nothing to search for: no row, so nothing matches.
+    q as materialized (select query from e where numnode(query) > 0),
+    ${hits},
+    cut as (select raw from hits order by raw desc offset ${offset + Math.max(limit, 1) - 1} limit 1),
     scored as (
       select type, id, dated,
              case when boosted and raw * ${MAX_BOOST}::float8 >= coalesce((select raw from cut), 0)
                   then raw * ${DONE_TOO_BOOST(sql.raw("hits.id"))}
                   else raw end as score
         from hits
-    )
-    select s.type, s.id, s.score, t.total::int as total
-      from (select ${total} as total) t
-      left join lateral (select * from scored order by score desc, dated desc nulls last, type, id limit ${limit} offset ${offset}) s on true
-     order by s.score desc, s.dated desc nulls last, s.type, s.id`));
-  const rows = r.rows.filter((x) => x.id !== null);
-  return { rows: rows.map((x) => ({ ...x, score: Number(x.score) })), total: r.rows[0]?.total ?? 0 };
-}
-
-/**
- * Runs a ranking query in a transaction whose planner reads the matches through the GIN index.
- * The planner does not know what testing a tsvector costs (reading it back from TOAST storage),
- * and for a word in a fifth of the write-ups it would otherwise test every row; through the
- * index it reads only the matches, two to three times faster on the benchmark's 100,000.
- */
-async function withIndexPlan<T>(db: DbOrTx, work: (tx: DbOrTx) => Promise<T>): Promise<T> {
-  return db.transaction(async (tx) => {
-    await tx.execute(sql`set local enable_seqscan = off`);
-    return work(tx);
-  });
-}
-
-/** Titles, links, systems and snippets of the rows shown (ts_headline only for these). */
-async function describe(db: DbOrTx, rows: Ranked[], tsquery: string | null): Promise<SearchResult[]> {
-  const q = tsquery === null ? sql`null::tsquery` : sql`${tsquery}::tsquery`;
-  const idsOf = (kind: SearchKind) => rows.filter((r) => r.type === kind).map((r) => r.id);
-  const headline = (text: SQL, fallback: SQL) =>
-    tsquery === null
-      ? sql`left(${unmarked(fallback)}, 280)`
-      : sql`ts_headline(${CONFIG}, ${unmarked(text)}, (select query from q), ${HEADLINE_OPTIONS})`;
-  const asArray = (ids: number[]) => sql`${`{${ids.join(",")}}`}::int[]`;
-
-  const [writeups, spaces, items] = await Promise.all([
-    idsOf("writeup").length
-      ? db.execute<{
-          id: number; slug: string; title: string; headline: string; author: string; hull_number: number | null;
-          published_at: string | null; hull_from: number; hull_to: number; done_too: number; systems: { slug: string; name: string }[];
-        }>(sql`
-          with q as materialized (select ${q} as query)
-          select w.id, w.slug, w.title, ${headline(sql`w.summary || E'\n' || w.body_text`, sql`w.summary`)} as headline,
-                 u.display_name as author, b.hull_number, w.published_at, w.hull_from, w.hull_to,
-                 (select count(*) from done_too d where d.writeup_id = w.id)::int as done_too,
-                 coalesce((select json_agg(json_build_object('slug', s.slug, 'name', s.name) order by s.sort_order, s.slug)
-                             from writeup_systems ws join systems s on s.slug = ws.system_slug
-                            where ws.writeup_id = w.id), '[]'::json) as systems
-            from writeups w
-            join users u on u.id = w.author_id
-            left join boats b on b.id = w.boat_id
-           where w.id = any(${asArray(idsOf("writeup"))}) and w.status = 'published'`)
-      : null,
-    idsOf("space").length
-      ? db.execute<{ id: number; slug: string; name: string; headline: string; zone: string; hull_from: number; hull_to: number; measurements: number }>(sql`
-          with q as materialized (select ${q} as query)
-          select sp.id, sp.slug, sp.name, ${headline(sql`sp.obstructions`, sql`sp.obstructions`)} as headline,
-                 z.name as zone, sp.hull_from, sp.hull_to,
-                 (select count(*) from space_measurements m where m.space_id = sp.id)::int as measurements
-            from spaces sp join zones z on z.slug = sp.zone_slug
-           where sp.id = any(${asArray(idsOf("space"))})`)
-      : null,
-    idsOf("item").length
-      ? db.execute<{ id: number; slug: string; name: string; headline: string; kind: string; length_mm: number; width_mm: number; height_mm: number; orientation: string }>(sql`
-          with q as materialized (select ${q} as query)
-          select i.id, i.slug, i.name, ${headline(sql`i.note`, sql`i.note`)} as headline,
-                 i.kind, i.length_mm, i.width_mm, i.height_mm, i.orientation
-            from items i
-           where i.id = any(${asArray(idsOf("item"))})`)
-      : null,
-  ]);
-
-  const out: SearchResult[] = [];
-  for (const r of rows) {
-    if (r.type === "writeup") {
-      const w = writeups?.rows.find((x) => x.id === r.id);
-      if (!w) continue;
-      out.push({
-        type: "writeup", id: w.id, slug: w.slug, title: w.title, url: `/writeups/${w.slug}`,
-        snippet: readHeadline(w.headline ?? ""), systems: w.systems, score: r.score,
+    ),
+    shown as (select * from scored order by score desc, dated desc nulls last, type, id limit ${limit} offset ${offset})
+    select t.total::int as total, t.capped, a.parsed, a.expanded, a.synonyms, s.type, s.id, s.score,
+           coalesce(dw.info, ds.info, di.info) as info
+      from totals t
+      cross join (${analysis}) a
+      left join shown s on true
+      left join lateral (
+        select json_build_object(
+                 'slug', w.slug, 'title', w.title, 'headline', ${headline(sql`w.summary || E'\n' || w.body_text`, sql`w.summary`)},
+                 'author', u.display_name, 'hull_number', b.hull_number, 'published_at', w.published_at,
+                 'hull_from', w.hull_from, 'hull_to', w.hull_to,
+                 'done_too', (select count(*) from done_too d where d.writeup_id = w.id),
+                 'systems', coalesce((select json_agg(json_build_object('slug', sy.slug, 'name', sy.name) order by sy.sort_order, sy.slug)
+                                        from writeup_systems ws join systems sy on sy.slug = ws.system_slug
+                                       where ws.writeup_id = w.id), '[]'::json)) as info
+          from writeups w
+          join users u on u.id = w.author_id
+          left join boats b on b.id = w.boat_id
+         where w.id = case when s.type = 'writeup' then s.id end) dw on true
+      left join lateral (
+        select json_build_object(
+                 'slug', sp.slug, 'title', sp.name, 'headline', ${headline(sql`sp.obstructions`, sql`sp.obstructions`)},
+                 'zone', z.name, 'hull_from', sp.hull_from, 'hull_to', sp.hull_to,
+                 'measurements', (select count(*) from space_measurements m where m.space_id = sp.id)) as info
+          from spaces sp join zones z on z.slug = sp.zone_slug
+         where sp.id = case when s.type = 'space' then s.id end) ds on true
+      left join lateral (
+        select json_build_object(
+                 'slug', i.slug, 'title', i.name, 'headline', ${headline(sql`i.note`, sql`i.note`)}, 'kind', i.kind,
+                 'length_mm', i.length_mm, 'width_mm', i.width_mm, 'height_mm', i.height_mm, 'orientation', i.orientation) as info
+          from items i
+         where i.id = case when s.type = 'item' then s.id end) di on true
+     order by s.score desc, s.dated desc nulls last, s.type, s.id`);
+  const first = rows[0];
+  const results: SearchResult[] = [];
+  for (const x of rows) {
+    if (x.type === null || x.id === null || x.info === null) continue;
+    const score = Number(x.score);
+    const info = x.info;
+    const snippet = readHeadline(info.headline ?? "");
+    if (x.type === "writeup" && "author" in info) {
+      results.push({
+        type: "writeup", id: x.id, slug: info.slug, title: info.title, url: `/writeups/${info.slug}`, snippet, systems: info.systems, score,
         detail: {
-          type: "writeup", author: w.author, hullNumber: w.hull_number,
-          publishedAt: w.published_at ? new Date(w.published_at).toISOString() : null,
-          hulls: { from: w.hull_from, to: w.hull_to }, doneToo: w.done_too,
+          type: "writeup", author: info.author, hullNumber: info.hull_number,
+          publishedAt: info.published_at ? new Date(info.published_at).toISOString() : null,
+          hulls: { from: info.hull_from, to: info.hull_to }, doneToo: Number(info.done_too),
         },
       });
-    } else if (r.type === "space") {
-      const sp = spaces?.rows.find((x) => x.id === r.id);
-      if (!sp) continue;
-      out.push({
-        type: "space", id: sp.id, slug: sp.slug, title: sp.name, url: `/spaces/${sp.slug}`,
-        snippet: readHeadline(sp.headline ?? ""), systems: [], score: r.score,
-        detail: { type: "space", zone: sp.zone, hulls: { from: sp.hull_from, to: sp.hull_to }, measurements: sp.measurements },
+    } else if (x.type === "space" && "zone" in info) {
+      results.push({
+        type: "space", id: x.id, slug: info.slug, title: info.title, url: `/spaces/${info.slug}`, snippet, systems: [], score,
+        detail: { type: "space", zone: info.zone, hulls: { from: info.hull_from, to: info.hull_to }, measurements: Number(info.measurements) },
       });
-    } else {
-      const it = items?.rows.find((x) => x.id === r.id);
-      if (!it) continue;
-      out.push({
-        type: "item", id: it.id, slug: it.slug, title: it.name, url: `/items#item-${it.slug}`,
-        snippet: readHeadline(it.headline ?? ""), systems: [], score: r.score,
+    } else if (x.type === "item" && "kind" in info) {
+      results.push({
+        type: "item", id: x.id, slug: info.slug, title: info.title, url: `/items#item-${info.slug}`, snippet, systems: [], score,
         detail: {
-          type: "item", box: { length: Number(it.length_mm), width: Number(it.width_mm), height: Number(it.height_mm) },
-          upright: it.orientation === "upright", battery: it.kind === "battery-group" || /\bbatter(y|ies)\b/i.test(it.name),
+          type: "item", box: { length: Number(info.length_mm), width: Number(info.width_mm), height: Number(info.height_mm) },
+          upright: info.orientation === "upright", battery: info.kind === "battery-group" || /\bbatter(y|ies)\b/i.test(info.title),
         },
       });
     }
   }
-  return out;
+  return {
+    rows: results,
+    total: first?.total ?? 0,
+    capped: first?.capped ?? false,
+    analysis: words === null || !first ? null : { parsed: first.parsed, expanded: first.expanded, synonyms: first.synonyms ?? [] },
+  };
 }
 
 export type QueryAnalysis = {
@@ -337,54 +384,42 @@ export async function analyseQuery(db: DbOrTx, words: string): Promise<QueryAnal
   return r.rows[0];
 }
 
-/** The words as PostgreSQL runs them: parsed and expanded with the synonyms (empty: only common words). */
-async function expand(db: DbOrTx, words: string): Promise<string> {
-  const r = await db.execute<{ q: string }>(sql`select ${tsqueryOf(words)}::text as q`);
-  return r.rows[0].q;
-}
-
 /**
- * The search: up to `limit` results from `offset`, best first, with the total. A query whose
- * words are not all found anywhere is loosened to any of its words (when it uses no syntax);
- * a query that finds little gets a "did you mean" from the vocabulary.
+ * The search: up to `limit` results from `offset`, best first, with the total (at most
+ * MATCH_CAP of each kind are read: `capped` then says there are more). A query whose words are
+ * not all found anywhere is loosened to any of its words (when it uses no syntax); a query that
+ * finds little gets a "did you mean" from the vocabulary. Most searches are one statement.
  */
 export async function search(db: DbOrTx, req: SearchRequest): Promise<SearchAnswer> {
   const words = queryWords(req.q).length ? req.q : null;
-  const [fitIds, first] = await Promise.all([
-    fittingSpaceIds(db, req.filters),
-    words === null ? null : analyseQuery(db, words),
-  ]);
-  let analysis = first;
+  const fitIds = await fittingSpaceIds(db, req.filters);
+  let ranked = await page(db, words, req.filters, fitIds, req.limit, req.offset);
+  let analysis = ranked.analysis;
   const onlyCommonWords = analysis !== null && analysis.parsed === "";
   let matched: SearchAnswer["matched"] = words === null || onlyCommonWords ? "none" : "all";
   let used = words;
-  let tsquery = analysis?.expanded ?? null;
-  let ranked = onlyCommonWords
-    ? { rows: [] as Ranked[], total: 0 }
-    : await rank(db, tsquery, req.filters, fitIds, req.limit, req.offset);
 
   let suggestion: string | null = null;
   if (words !== null && !onlyCommonWords && ranked.total < FEW_RESULTS) {
     const loose = ranked.total === 0 ? anyOfWords(words) : null;
     const [better, relaxed] = await Promise.all([
       didYouMean(db, words, req.filters, fitIds, ranked.total),
-      loose ? analyseQuery(db, loose).then(async (a) => ({ a, r: await rank(db, a.expanded, req.filters, fitIds, req.limit, req.offset) })) : null,
+      loose ? page(db, loose, req.filters, fitIds, req.limit, req.offset) : null,
     ]);
     suggestion = better;
-    if (loose && relaxed && relaxed.r.total > 0) {
-      ranked = relaxed.r;
+    if (loose && relaxed && relaxed.total > 0) {
+      ranked = relaxed;
       used = loose;
       matched = "any";
-      analysis = relaxed.a;
-      tsquery = relaxed.a.expanded;
+      analysis = relaxed.analysis;
     }
   }
 
   const typed = new Set(queryWords(req.q));
-  const results = await describe(db, ranked.rows, onlyCommonWords ? null : tsquery);
   return {
     total: ranked.total,
-    results,
+    capped: ranked.capped,
+    results: ranked.rows,
     suggestion,
     matched,
     tsquery: analysis?.expanded ?? "",
@@ -392,6 +427,11 @@ export async function search(db: DbOrTx, req: SearchRequest): Promise<SearchAnsw
     words: used ?? "",
     onlyCommonWords,
   };
+}
+
+/** How many results the words would give (at most MATCH_CAP of each kind). */
+async function countOf(db: DbOrTx, words: string, filters: SearchFilters, fitIds: number[] | null): Promise<number> {
+  return (await page(db, words, filters, fitIds, 0, 0)).total;
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -422,14 +462,11 @@ export async function didYouMean(
   if (!replacements.size) return null;
   const better = replaceWords(words, replacements);
   if (better === words) return null;
-  if ((await rank(db, await expand(db, better), filters, fitIds, 1, 0)).total > found) return better;
+  if ((await countOf(db, better, filters, fitIds)) > found) return better;
   const [looseBetter, looseWords] = [anyOfWords(better), anyOfWords(words)];
   if (!looseBetter || !looseWords) return null;
-  const [b, w] = await Promise.all([
-    expand(db, looseBetter).then((q) => rank(db, q, filters, fitIds, 1, 0)),
-    expand(db, looseWords).then((q) => rank(db, q, filters, fitIds, 1, 0)),
-  ]);
-  return b.total > w.total ? better : null;
+  const [b, w] = await Promise.all([countOf(db, looseBetter, filters, fitIds), countOf(db, looseWords, filters, fitIds)]);
+  return b > w ? better : null;
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -438,6 +475,11 @@ export async function didYouMean(
 
 export type FacetCount = { value: string; label: string; count: number };
 export type Facets = {
+  /**
+   * False when the words match more than MATCH_CAP of a kind: the choices are offered without
+   * counts (they would count only the matches read), and every count below is 0.
+   */
+  counted: boolean;
   kinds: FacetCount[];
   systems: FacetCount[];
   zones: FacetCount[];
@@ -458,6 +500,10 @@ export function hullChoices(ownHulls: number[], asked: SearchFilters["hull"]): H
   return choices;
 }
 
+/**
+ * The counts are made from the matches of the words (and the box to fit), at most MATCH_CAP + 1
+ * of each kind read: when there are more, `counted` is false and the choices come without counts.
+ */
 export async function searchFacets(db: DbOrTx, req: SearchRequest, choices: HullChoice[]): Promise<Facets> {
   const f = req.filters;
   const fitIds = await fittingSpaceIds(db, f);
@@ -465,6 +511,7 @@ export async function searchFacets(db: DbOrTx, req: SearchRequest, choices: Hull
   const match = (alias: string) => (words === null ? sql`true` : sql`${sql.raw(alias)}.search @@ (select query from q)`);
   const ids = fitIds === null ? null : sql`${`{${fitIds.join(",")}}`}::int[]`;
   const fits = (expr: SQL) => (ids === null ? sql`true` : expr);
+  const cap = sql.raw(String(MATCH_CAP + 1));
 
   const ok = {
     system: f.system ? sql`${f.system} = any(systems)` : sql`true`,
@@ -483,27 +530,35 @@ export async function searchFacets(db: DbOrTx, req: SearchRequest, choices: Hull
 
   const r = await db.execute<{ facet: string; value: string | null; count: number }>(sql`
     with q as materialized (select ${words === null ? sql`null::tsquery` : tsqueryOf(words)} as query),
-    m as (
-      select 'writeup'::text as type,
-             array(select ws.system_slug from writeup_systems ws where ws.writeup_id = w.id) as systems,
-             array(select wz.zone_slug from writeup_zones wz where wz.writeup_id = w.id) as zones,
-             w.hull_from, w.hull_to,
-             exists (select 1 from writeup_spaces x where x.writeup_id = w.id) as measured,
-             extract(year from w.published_at at time zone 'UTC')::int as year,
-             ${fits(sql`exists (select 1 from writeup_spaces x where x.writeup_id = w.id and x.space_id = any(${ids}))`)} as fits
-        from writeups w
-       where w.status = 'published' and ${match("w")}
+    m as materialized (
+      select * from (
+        select 'writeup'::text as type,
+               array(select substr(t, 8) from unnest(w.search_filters) t where t like 'system:%') as systems,
+               array(select substr(t, 6) from unnest(w.search_filters) t where t like 'zone:%') as zones,
+               w.hull_from, w.hull_to,
+               exists (select 1 from writeup_spaces x where x.writeup_id = w.id) as measured,
+               extract(year from w.published_at at time zone 'UTC')::int as year,
+               ${fits(sql`exists (select 1 from writeup_spaces x where x.writeup_id = w.id and x.space_id = any(${ids}))`)} as fits
+          from writeups w
+         where w.status = 'published' and ${match("w")}
+         limit ${cap}) mw
       union all
-      select 'space', '{}'::text[], array[sp.zone_slug], sp.hull_from, sp.hull_to,
-             exists (select 1 from space_measurements sm where sm.space_id = sp.id), null::int,
-             ${fits(sql`sp.id = any(${ids})`)}
-        from spaces sp
-       where ${match("sp")}
+      select * from (
+        select 'space', '{}'::text[], array[sp.zone_slug], sp.hull_from, sp.hull_to,
+               exists (select 1 from space_measurements sm where sm.space_id = sp.id), null::int,
+               ${fits(sql`sp.id = any(${ids})`)}
+          from spaces sp
+         where ${match("sp")}
+         limit ${cap}) ms
       union all
-      select 'item', '{}'::text[], '{}'::text[], 1, 2147483647, false, null::int, ${ids === null ? sql`true` : sql`false`}
-        from items i
-       where ${match("i")}
+      select * from (
+        select 'item', '{}'::text[], '{}'::text[], 1, 2147483647, false, null::int, ${ids === null ? sql`true` : sql`false`}
+          from items i
+         where ${match("i")}
+         limit ${cap}) mi
     )
+    select 'capped' as facet, null as value, count(*)::int as count from (select type from m group by type having count(*) >= ${cap}) c
+    union all
     select 'kind' as facet, type as value, count(*)::int as count from m where ${except("kind")} group by type
     union all
     select 'system', s, count(*)::int from m, unnest(systems) s where ${except("system")} group by s
@@ -520,13 +575,16 @@ export async function searchFacets(db: DbOrTx, req: SearchRequest, choices: Hull
     union all
     select 'year', year::text, count(*)::int from m where year is not null and ${except("year")} group by year`);
 
-  const [names, counts] = [await searchTaxonomy(db), r.rows];
+  const names = await searchTaxonomy(db);
+  const counted = (r.rows.find((c) => c.facet === "capped")?.count ?? 0) === 0;
+  const counts = counted ? r.rows : [];
   const pick = (facet: string) => counts.filter((c) => c.facet === facet);
   const ordered = (list: { slug: string; name: string }[], facet: string) =>
     list
       .map((x) => ({ value: x.slug, label: x.name, count: pick(facet).find((c) => c.value === x.slug)?.count ?? 0 }))
-      .filter((x) => x.count > 0 || x.value === (facet === "system" ? f.system : f.zone));
+      .filter((x) => !counted || x.count > 0 || x.value === (facet === "system" ? f.system : f.zone));
   return {
+    counted,
     kinds: (["writeup", "space", "item"] as const).map((k) => ({
       value: k, label: k, count: pick("kind").find((c) => c.value === k)?.count ?? 0,
     })),
@@ -534,19 +592,23 @@ export async function searchFacets(db: DbOrTx, req: SearchRequest, choices: Hull
     zones: ordered(names.zones, "zone"),
     hulls: choices.map((c) => ({ ...c, count: pick("hull").find((x) => x.value === c.value)?.count ?? 0 })),
     measured: pick("measured")[0]?.count ?? 0,
-    years: pick("year")
-      .map((c) => ({ value: c.value ?? "", label: c.value ?? "", count: c.count }))
-      .sort((a, b) => Number(b.value) - Number(a.value)),
+    years: counted
+      ? pick("year")
+        .map((c) => ({ value: c.value ?? "", label: c.value ?? "", count: c.count }))
+        .sort((a, b) => Number(b.value) - Number(a.value))
+      : [],
   };
 }
 
 /** The systems and zones, in the class's order (for the filters and to check a parameter). */
 export async function searchTaxonomy(db: DbOrTx) {
-  const [systems, zones] = await Promise.all([
-    db.execute<{ slug: string; name: string }>(sql`select slug, name from systems order by sort_order, slug`),
-    db.execute<{ slug: string; name: string }>(sql`select slug, name from zones order by sort_order, slug`),
-  ]);
-  return { systems: systems.rows, zones: zones.rows };
+  const r = await db.execute<{ kind: "system" | "zone"; slug: string; name: string }>(sql`
+    select 'system' as kind, slug, name, sort_order from systems
+    union all
+    select 'zone', slug, name, sort_order from zones
+     order by kind, sort_order, slug`);
+  const of = (kind: "system" | "zone") => r.rows.filter((x) => x.kind === kind).map(({ slug, name }) => ({ slug, name }));
+  return { systems: of("system"), zones: of("zone") };
 }
 
 // ---------------------------------------------------------------------------------------------

@@ -14,18 +14,22 @@ export async function loader({ request }: Route.LoaderArgs) {
   if (!req.q && !hasFilters(req.filters)) {
     return badParameter("q", "q: required: the words to search for (or a filter such as system, zone, hull or fit).");
   }
-  const { systems, zones } = await searchTaxonomy(db);
-  if (req.filters.system && !systems.some((x) => x.slug === req.filters.system)) {
-    return badParameter("system", `system: no such system; use one of ${systems.map((x) => x.slug).join(", ")}.`);
-  }
-  if (req.filters.zone && !zones.some((x) => x.slug === req.filters.zone)) {
-    return badParameter("zone", `zone: no such zone; use one of ${zones.map((x) => x.slug).join(", ")}.`);
+  if (req.filters.system || req.filters.zone) {
+    const { systems, zones } = await searchTaxonomy(db);
+    if (req.filters.system && !systems.some((x) => x.slug === req.filters.system)) {
+      return badParameter("system", `system: no such system; use one of ${systems.map((x) => x.slug).join(", ")}.`);
+    }
+    if (req.filters.zone && !zones.some((x) => x.slug === req.filters.zone)) {
+      return badParameter("zone", `zone: no such zone; use one of ${zones.map((x) => x.slug).join(", ")}.`);
+    }
   }
   const answer = await search(db, req);
   const ms = performance.now() - started;
   return Response.json(
     {
       total: answer.total,
+      // true: more than `total` results match; only the first of them were read and ranked.
+      totalCapped: answer.capped,
       results: answer.results.map((r) => ({
         type: r.type,
         id: r.id,

@@ -8,7 +8,7 @@ import { db } from "~/db/index.server";
 import { describeBox } from "~/domain/fit-search";
 import { CLASS_NAME, describeHullRange } from "~/domain/hulls";
 import {
-  hasFilters, KIND_LABEL, pageCount, PAGE_SIZE, parseSearchParams, SEARCH_KINDS, searchHref, type SearchKind,
+  hasFilters, KIND_LABEL, MATCH_CAP, pageCount, PAGE_SIZE, parseSearchParams, SEARCH_KINDS, searchHref, type SearchKind,
 } from "~/domain/search";
 import type { LengthUnit } from "~/domain/units";
 import { hullChoices, search, searchFacets, searchTaxonomy, type Facets, type SearchResult } from "~/models/search.server";
@@ -181,11 +181,18 @@ function Results({ d, params }: { d: ResultsData; params: URLSearchParams }) {
         <div aria-live="polite">
           {answer.total > 0 ? (
             <p className="text-ink-soft" id="search-summary">
-              {answer.total} {answer.total === 1 ? "result" : "results"}
+              {answer.capped ? `More than ${answer.total.toLocaleString("en-US")} results` : `${answer.total} ${answer.total === 1 ? "result" : "results"}`}
               {pages > 1 ? `, ${first}–${Math.min(first + PAGE_SIZE - 1, answer.total)} shown (page ${d.page} of ${pages})` : ""}
               {answer.matched !== "none" ? ", best matches first" : active.fit ? ", snuggest first" : ""}.
             </p>
           ) : null}
+          {answer.capped && (
+            <p className="mt-2 rounded-md bg-cloth-100 p-3 text-step--1" id="search-capped">
+              That search matches too much to read it all: these are the best of the first {MATCH_CAP.toLocaleString("en-US")} of
+              each kind that it read, with those that have your words in their title. Add a word, or narrow by system, zone or
+              hull, to see everything that matches.
+            </p>
+          )}
           {answer.suggestion && (
             <p className="mt-2 font-medium">
               Did you mean{" "}
@@ -207,7 +214,8 @@ function Results({ d, params }: { d: ResultsData; params: URLSearchParams }) {
         {byKind.map((g) => (
           <section key={g.kind} aria-labelledby={`group-${g.kind}`} className="mt-6">
             <h2 id={`group-${g.kind}`} className="text-step-1 font-semibold text-deep-900">
-              {KIND_LABEL[g.kind].many} <span className="text-step--1 font-normal text-ink-soft">({kindCount(g.kind)} in all)</span>
+              {KIND_LABEL[g.kind].many}
+              {facets.counted && <> <span className="text-step--1 font-normal text-ink-soft">({kindCount(g.kind)} in all)</span></>}
             </h2>
             <ol className="mt-3 grid gap-3">
               {g.results.map((r) => <ResultCard key={`${r.type}-${r.id}`} r={r} unit={d.unit} />)}
@@ -285,6 +293,9 @@ function FacetPanel({ facets, active, params }: { facets: Facets; active: Result
   return (
     <aside aria-label="Narrow the results" className="text-step--1">
       <h2 className="text-step-0 font-semibold text-deep-900">Narrow the results</h2>
+      {!facets.counted && (
+        <p className="mt-1 text-ink-soft">Too many matches to count for each choice; choose one to narrow.</p>
+      )}
       <FacetList
         title="Kind"
         param="type"
@@ -292,9 +303,10 @@ function FacetPanel({ facets, active, params }: { facets: Facets; active: Result
         anyLabel="All kinds"
         options={facets.kinds.map((k) => ({ value: k.value, label: KIND_LABEL[k.value as SearchKind].many, count: k.count }))}
         params={params}
+        counted={facets.counted}
       />
-      <FacetList title="System" param="system" current={params.get("system")} anyLabel="Any system" options={facets.systems} params={params} />
-      <FacetList title="Zone of the boat" param="zone" current={params.get("zone")} anyLabel="Anywhere aboard" options={facets.zones} params={params} />
+      <FacetList title="System" param="system" current={params.get("system")} anyLabel="Any system" options={facets.systems} params={params} counted={facets.counted} />
+      <FacetList title="Zone of the boat" param="zone" current={params.get("zone")} anyLabel="Anywhere aboard" options={facets.zones} params={params} counted={facets.counted} />
       <FacetList
         title="Applies to"
         param="hull"
@@ -302,6 +314,7 @@ function FacetPanel({ facets, active, params }: { facets: Facets; active: Result
         anyLabel="Every hull"
         options={facets.hulls.map((h) => ({ value: h.value, label: h.label, count: h.count }))}
         params={params}
+        counted={facets.counted}
       />
       <FacetList
         title="Measurements"
@@ -310,16 +323,17 @@ function FacetPanel({ facets, active, params }: { facets: Facets; active: Result
         anyLabel="With or without"
         options={[{ value: "true", label: "With measured spaces", count: facets.measured }]}
         params={params}
+        counted={facets.counted}
       />
       {facets.years.length > 0 && (
-        <FacetList title="Published in" param="year" current={active.year ? String(active.year) : null} anyLabel="Any year" options={facets.years} params={params} />
+        <FacetList title="Published in" param="year" current={active.year ? String(active.year) : null} anyLabel="Any year" options={facets.years} params={params} counted={facets.counted} />
       )}
     </aside>
   );
 }
 
 function FacetList({
-  title, param, current, anyLabel, options, params,
+  title, param, current, anyLabel, options, params, counted,
 }: {
   title: string;
   param: string;
@@ -327,6 +341,8 @@ function FacetList({
   anyLabel: string;
   options: { value: string; label: string; count: number }[];
   params: URLSearchParams;
+  /** False: the choices are offered without counts (too many matches to count). */
+  counted: boolean;
 }) {
   const id = `facet-${param}`;
   return (
@@ -342,20 +358,20 @@ function FacetList({
         </li>
         {options.map((o) => {
           const on = current === o.value;
-          const label = `${o.label} (${o.count})`;
+          const label = counted ? `${o.label} (${o.count})` : o.label;
           return (
             <li key={o.value}>
               {on ? (
                 <span aria-current="true" className="flex justify-between gap-2 rounded bg-deep-700 px-2 py-1 font-medium text-cloth-50">
-                  <span>{o.label}</span><span>{o.count}</span>
+                  <span>{o.label}</span>{counted && <span>{o.count}</span>}
                 </span>
-              ) : o.count === 0 ? (
+              ) : counted && o.count === 0 ? (
                 <span className="flex justify-between gap-2 px-2 py-1 text-ink-soft" aria-label={label}>
                   <span>{o.label}</span><span>0</span>
                 </span>
               ) : (
                 <Link to={searchHref(params, { [param]: o.value })} aria-label={label} className="flex justify-between gap-2 rounded px-2 py-1 hover:bg-cloth-100">
-                  <span>{o.label}</span><span className="text-ink-soft">({o.count})</span>
+                  <span>{o.label}</span>{counted && <span className="text-ink-soft">({o.count})</span>}
                 </Link>
               )}
             </li>

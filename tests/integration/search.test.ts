@@ -8,7 +8,7 @@ import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { SnippetText } from "~/components/snippet";
-import { NO_FILTERS, parseSearchParams, type SearchFilters, type SearchRequest } from "~/domain/search";
+import { MATCH_CAP, NO_FILTERS, parseSearchParams, type SearchFilters, type SearchRequest } from "~/domain/search";
 import { analyseQuery, doneTooBoost, hullChoices, search, searchFacets, suggest } from "~/models/search.server";
 import { findFittingSpaces } from "~/models/spaces.server";
 import { appDatabase } from "../support/app";
@@ -243,8 +243,9 @@ describe("GET /api/search", () => {
   it("answers { total, results: [{ type, id, title, url, snippet, systems, score }], suggestion }", async () => {
     const { status, body } = await api("q=settee&limit=5");
     expect(status).toBe(200);
-    expect(Object.keys(body).sort()).toEqual(["matched", "results", "suggestion", "total"]);
+    expect(Object.keys(body).sort()).toEqual(["matched", "results", "suggestion", "total", "totalCapped"]);
     expect(body.total).toBeGreaterThan(5);
+    expect(body.totalCapped).toBe(false);
     expect(body.results).toHaveLength(5);
     for (const r of body.results) {
       expect(Object.keys(r).sort()).toEqual(["id", "score", "snippet", "systems", "title", "type", "url"]);
@@ -323,10 +324,62 @@ describe("GET /api/search", () => {
   });
 });
 
+describe("a search that matches more than it reads (docs/decisions/0008)", () => {
+  it("counts up to MATCH_CAP of a kind, says 'more than', ranks a title match it reads through the title index, and offers the filters without counts", async () => {
+    const author = await authorId();
+    // MATCH_CAP + 20 write-ups with a word of their own in the body; the last one written also has it in its title.
+    await t.db.execute(sql`
+      insert into writeups (slug, title, summary, body_text, status, author_id, published_at)
+      select 'gunwale-' || g, 'Job ' || g, 'A job.', 'The quillwort gasket was replaced.', 'published', ${author}, '2024-01-01'
+        from generate_series(1, ${MATCH_CAP + 19}) g`);
+    await t.db.execute(sql`
+      insert into writeups (slug, title, summary, body_text, status, author_id, published_at)
+      values ('quillwort-title', 'Quillwort gasket renewed', 'A job.', 'The quillwort gasket was replaced.', 'published', ${author}, '2024-01-01')`);
+    const { body } = await api("q=quillwort&limit=5");
+    expect(body).toMatchObject({ total: MATCH_CAP, totalCapped: true });
+    expect(body.results).toHaveLength(5);
+    expect(body.results[0].url).toBe("/writeups/quillwort-title");
+    const facets = await searchFacets(t.db, req("quillwort"), hullChoices([], null));
+    expect(facets.counted).toBe(false);
+    expect(facets.systems.length).toBeGreaterThan(0);
+    // Narrowed below the cap, the total is exact again.
+    const narrowed = (await api("q=quillwort%20renewed")).body;
+    expect(narrowed).toMatchObject({ total: 1, totalCapped: false });
+    await t.db.execute(sql`delete from writeups where slug like 'gunwale-%' or slug = 'quillwort-title'`);
+  });
+
+  it("makes the snippet of a long write-up from around the first word found, far into its body", async () => {
+    const author = await authorId();
+    const filler = "The hull was sanded, faired and painted again before launch. ".repeat(60);
+    await t.db.execute(sql`
+      insert into writeups (slug, title, summary, body_text, status, author_id, published_at)
+      values ('long-body', 'A long job', 'Sanding.', ${`${filler}Then the Quillback cleat was bedded in butyl. ${filler}`}, 'published', ${author}, now())`);
+    const { body } = await api("q=quillback%20cleat");
+    const r = body.results.find((x: any) => x.url === "/writeups/long-body");
+    expect(r.snippet).toContain("<mark>Quillback</mark> <mark>cleat</mark>");
+    expect(r.snippet.length).toBeLessThan(600);
+    await t.db.execute(sql`delete from writeups where slug = 'long-body'`);
+  });
+
+  it("keeps a write-up's filter words with its tags, and narrows by them", async () => {
+    const [w] = (await t.db.execute<{ id: number; search_filters: string[] }>(sql`
+      select id, search_filters from writeups where slug = 'group-27-battery-under-starboard-settee'`)).rows;
+    expect(w.search_filters).toContain("zone:starboard-settee");
+    expect(w.search_filters.some((f) => f.startsWith("system:"))).toBe(true);
+    await t.db.execute(sql`insert into writeup_zones (writeup_id, zone_slug) values (${w.id}, 'lazarette')`);
+    const [after] = (await t.db.execute<{ search_filters: string[] }>(sql`select search_filters from writeups where id = ${w.id}`)).rows;
+    expect(after.search_filters).toContain("zone:lazarette");
+    expect(await slugs("battery", { zone: "lazarette" })).toContain("writeup:group-27-battery-under-starboard-settee");
+    await t.db.execute(sql`delete from writeup_zones where writeup_id = ${w.id} and zone_slug = 'lazarette'`);
+    expect(await slugs("battery", { zone: "lazarette" })).not.toContain("writeup:group-27-battery-under-starboard-settee");
+  });
+});
+
 describe("filters, facets and numbers", () => {
   it("counts each choice as the results it would give", async () => {
     const base = req("battery");
     const facets = await searchFacets(t.db, base, hullChoices([147], null));
+    expect(facets.counted).toBe(true);
     const total = (await search(t.db, base)).total;
     expect(facets.kinds.reduce((n, k) => n + k.count, 0)).toBe(total);
     for (const s of facets.systems) expect({ s: s.value, n: (await search(t.db, req("battery", { system: s.value }))).total }).toEqual({ s: s.value, n: s.count });

@@ -4,7 +4,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
   anyOfWords, dimensionsInQuery, escapeHtml, HIT_END, HIT_START, parseHullFilter, parseSearchParams, queryWords,
-  readHeadline, replaceWords, searchHref, snippetHtml, snippetParts, typeaheadWords, usesSyntax,
+  readHeadline, replaceWords, searchHref, snippetHtml, snippetParts, typeaheadWords, usesSyntax, wordStarts,
 } from "~/domain/search";
 
 const IN = 25.4; // mm, exact by definition (NIST Handbook 44, Appendix C)
@@ -162,6 +162,13 @@ describe("the query's words", () => {
     expect(typeaheadWords("group 27 batt")).toEqual({ whole: ["group", "27"], prefix: "batt" });
     expect(typeaheadWords("settee ")).toEqual({ whole: ["settee"], prefix: null });
     expect(typeaheadWords("'); drop--")).toEqual({ whole: [], prefix: "drop" });
+  });
+
+  it("gives the beginnings of the typed words where a snippet should start (lower case and capitalised)", () => {
+    // Our own rule (docs/decisions/0008): four letters of a longer word, a short word whole.
+    expect(wordStarts("battery box -outboard")).toEqual(["batt", "Batt", "box", "Box", "outb", "Outb"]);
+    expect(wordStarts("the \"V-berth\"")).toEqual(["the", "The", "v-be", "V-be"]);
+    expect(wordStarts("   ")).toEqual([]);
   });
 
   it("builds the page's links: changes a parameter and goes back to page 1", () => {
