@@ -113,6 +113,47 @@ async function generate(db: ReturnType<typeof createDb>["db"]) {
   return photoKeys;
 }
 
+/**
+ * CPU seconds used by this process's descendants (Chromium's processes), sampled from /proc every
+ * 100 ms while `work` runs: a figure the machine's other load does not inflate as it does the
+ * wall-clock time. Linux only; null elsewhere.
+ */
+async function descendantsCpu<T>(work: () => Promise<T>): Promise<{ result: T; cpuSeconds: number | null }> {
+  if (!fs.existsSync("/proc/self/stat")) return { result: await work(), cpuSeconds: null };
+  const seen = new Map<number, number>();
+  const tick = Number(process.env.CLK_TCK ?? 100); // USER_HZ, 100 on Linux (man 5 proc)
+  const sample = () => {
+    const parent = new Map<number, number>();
+    const cpu = new Map<number, number>();
+    for (const entry of fs.readdirSync("/proc")) {
+      if (!/^\d+$/.test(entry)) continue;
+      try {
+        const fields = fs.readFileSync(`/proc/${entry}/stat`, "utf8").split(") ")[1].split(" ");
+        parent.set(Number(entry), Number(fields[1]));
+        cpu.set(Number(entry), (Number(fields[11]) + Number(fields[12])) / tick);
+      } catch { /* gone */ }
+    }
+    const mine = new Set([process.pid]);
+    for (let grew = true; grew;) {
+      grew = false;
+      for (const [pid, ppid] of parent) if (!mine.has(pid) && mine.has(ppid)) { mine.add(pid); grew = true; }
+    }
+    mine.delete(process.pid);
+    for (const pid of mine) seen.set(pid, Math.max(seen.get(pid) ?? 0, cpu.get(pid) ?? 0));
+  };
+  const before = new Set<number>();
+  sample();
+  for (const pid of seen.keys()) before.add(pid);
+  const timer = setInterval(sample, 100);
+  try {
+    const result = await work();
+    sample();
+    return { result, cpuSeconds: [...seen].filter(([pid]) => !before.has(pid)).reduce((n, [, c]) => n + c, 0) };
+  } finally {
+    clearInterval(timer);
+  }
+}
+
 async function main() {
   // Rendered as the production server renders (React's production build).
   process.env.NODE_ENV = "production";
@@ -173,7 +214,7 @@ async function main() {
     // The PDF: inlining the thumbnails, then Chromium's print, browser start included.
     const snapshot = await digests.buildSnapshot(db, id);
     t0 = performance.now();
-    const pdf = await print.buildDigestPdf(snapshot, { className: "Brantwater 22", appUrl: "https://sistership.example", fetchObject });
+    const { result: pdf, cpuSeconds } = await descendantsCpu(() => print.buildDigestPdf(snapshot, { className: "Brantwater 22", appUrl: "https://sistership.example", fetchObject }));
     const pdfSeconds = (performance.now() - t0) / 1000;
     const bytes = pdf.byteLength;
     if (process.argv.includes("--keep-pdf")) {
@@ -186,6 +227,8 @@ async function main() {
     console.log(`[bench] PDF: ${pages} pages, ${(bytes / 1e6).toFixed(1)} MB, ${photos.size} thumbnails inlined`);
     figure(`digest PDF, ${n} write-ups (Chromium print, browser start included)`, pdfSeconds, "s", { op: "<=", value: 10 });
     figure("digest PDF pages", pages, "pages");
+    if (cpuSeconds !== null) figure("digest PDF, Chromium's CPU time (all its processes)", cpuSeconds, "s");
+    console.log(`[bench] load average while measuring: ${os.loadavg().map((x) => x.toFixed(1)).join(" ")} on ${os.cpus().length} cores`);
   } finally {
     await pdfService.closePdfBrowser();
     await pool.end();
