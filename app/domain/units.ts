@@ -406,9 +406,15 @@ function oneDecimal(value: number): string {
   return s.endsWith(".0") ? s.slice(0, -2) : s;
 }
 
+/** At most `places` decimals, without trailing zeros, and never below the smallest step shown. */
+function trimDecimals(value: number, places: number): string {
+  const step = 10 ** -places;
+  return String(Number(Math.max(value, step).toFixed(places)));
+}
+
 /**
  * A weight for display. Pounds to 0.1 lb ("58 lb", "57.3 lb"), and below 1 lb in whole
- * ounces ("12 oz"). Kilograms to 0.1 kg ("26.3 kg"), and below 1 kg in whole grams ("340 g").
+ * ounces ("12 oz"). Kilograms to 0.1 kg ("26.3 kg"), and below 1 kg in whole grams ("340 g"); under an ounce or a gram, two decimals ("0.16 oz").
  */
 export function formatWeight(kg: number, unit: WeightUnit): string {
   if (!Number.isFinite(kg)) throw new RangeError(`Not a weight: ${kg}`);
@@ -416,8 +422,10 @@ export function formatWeight(kg: number, unit: WeightUnit): string {
   const size = Math.abs(kg);
   if (unit === "kg") {
     if (size > 0 && size < 1) {
-      const g = Math.round(size * 1000);
-      if (g === 0) return "0 g";
+      const grams = size * 1000;
+      // Under a gram, two decimals: a tiny part must not come back as "0 g", which reads as nothing.
+      if (grams < 1) return `${sign}${trimDecimals(grams, 2)} g`;
+      const g = Math.round(grams);
       if (g < 1000) return `${sign}${g} g`;
     }
     const text = oneDecimal(size);
@@ -425,8 +433,11 @@ export function formatWeight(kg: number, unit: WeightUnit): string {
   }
   const lb = kgToPounds(size);
   if (lb > 0 && lb < 1) {
-    const oz = Math.round(lb * OUNCES_PER_POUND);
-    if (oz < OUNCES_PER_POUND) return oz === 0 ? "0 oz" : `${sign}${oz} oz`;
+    const ounces = lb * OUNCES_PER_POUND;
+    // Under an ounce, two decimals: a tiny part must not come back as "0 oz", which reads as nothing.
+    if (ounces < 1) return `${sign}${trimDecimals(ounces, 2)} oz`;
+    const oz = Math.round(ounces);
+    if (oz < OUNCES_PER_POUND) return `${sign}${oz} oz`;
   }
   const text = oneDecimal(lb);
   return text === "0" ? "0 lb" : `${sign}${text} lb`;

@@ -315,12 +315,19 @@ describe("formatWeight", () => {
     expect(formatWeight(0.75 * 0.45359237, "lb")).toBe("12 oz");
     expect(formatWeight((15.7 / 16) * 0.45359237, "lb")).toBe("1 lb"); // 15.7 oz rounds to 16
     expect(formatWeight(0, "lb")).toBe("0 lb");
+    // A part of 0.01 lb is 0.16 oz (16 oz to the pound, NIST Handbook 44 Appendix C): shown, not "0 oz".
+    expect(formatWeight(0.01 * 0.45359237, "lb")).toBe("0.16 oz");
+    expect(formatWeight(0.0004 * 0.45359237, "lb")).toBe("0.01 oz");
+    // What the editor shows, it reads back: the tiny part keeps a weight above zero.
+    const back = parseWeight(formatWeight(0.01 * 0.45359237, "lb"), "lb");
+    expect(back.ok && back.kg).toBeCloseTo(0.16 / 16 * 0.45359237, 9);
   });
 
   it("kilograms to 0.1 kg, grams under a kilogram", () => {
     expect(formatWeight(26.3, "kg")).toBe("26.3 kg");
     expect(formatWeight(26.30835746, "kg")).toBe("26.3 kg");
     expect(formatWeight(0.34, "kg")).toBe("340 g");
+    expect(formatWeight(0.0005, "kg")).toBe("0.5 g");
     expect(formatWeight(0.9996, "kg")).toBe("1 kg");
   });
 
