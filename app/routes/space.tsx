@@ -433,7 +433,7 @@ function PartMeasurements({ part, many, unit }: { part: Part; many: boolean; uni
                 <th scope="col" className="py-1 pr-3 font-medium">By</th>
                 <th scope="col" className="hidden py-1 pr-3 font-medium sm:table-cell">With</th>
                 {AXES.map((a) => (
-                  <th key={a} scope="col" className="py-1 pr-2 text-right font-medium">{AXIS_HEADINGS[a]}</th>
+                  <th key={a} scope="col" className="py-1 pr-2 text-right font-medium">{AXIS_HEADINGS[a]}<span className="sm:hidden">, {unit}</span></th>
                 ))}
                 {withPhotos && <th scope="col" className="py-1 font-medium">Photo</th>}
               </tr>
@@ -465,10 +465,10 @@ function PartMeasurements({ part, many, unit }: { part: Part; many: boolean; uni
                     <td key={cell.axis} className="py-1.5 pr-2 text-right whitespace-nowrap tabular-nums" data-flagged={cell.flagged || undefined}>
                       {cell.flagged ? (
                         <span className="inline-block rounded-sm border border-dashed border-deep-500 px-1.5 py-0.5 text-right">
-                          <span className="block font-semibold text-deep-900">{cell.text}</span>
+                          <span className="block font-semibold text-deep-900"><Length text={cell.text} /></span>
                           <span className="block text-[0.75rem] text-ink-soft">far from the others</span>
                         </span>
-                      ) : cell.text}
+                      ) : <Length text={cell.text} />}
                     </td>
                   ))}
                   {withPhotos && (
@@ -488,13 +488,13 @@ function PartMeasurements({ part, many, unit }: { part: Part; many: boolean; uni
                 <tr className="border-t-2 border-deep-700 font-semibold">
                   <th scope="row" colSpan={2} className="py-1.5 pr-3 text-left">Consensus (median)</th>
                   <td className="hidden sm:table-cell" /><td className="hidden sm:table-cell" />
-                  {consensus.map((d) => <td key={d.axis} className="py-1.5 pr-2 text-right whitespace-nowrap tabular-nums" data-consensus={d.axis}>{d.value}</td>)}
+                  {consensus.map((d) => <td key={d.axis} className="py-1.5 pr-2 text-right whitespace-nowrap tabular-nums" data-consensus={d.axis}><Length text={d.value} /></td>)}
                   {withPhotos && <td />}
                 </tr>
                 <tr className="text-ink-soft">
                   <th scope="row" colSpan={2} className="py-1 pr-3 text-left font-normal">Spread (largest − smallest)</th>
                   <td className="hidden sm:table-cell" /><td className="hidden sm:table-cell" />
-                  {consensus.map((d) => <td key={d.axis} className="py-1 pr-2 text-right whitespace-nowrap tabular-nums">{d.spread}</td>)}
+                  {consensus.map((d) => <td key={d.axis} className="py-1 pr-2 text-right whitespace-nowrap tabular-nums"><Length text={d.spread} /></td>)}
                   {withPhotos && <td />}
                 </tr>
               </tfoot>
@@ -504,6 +504,13 @@ function PartMeasurements({ part, many, unit }: { part: Part; many: boolean; uni
       )}
     </div>
   );
+}
+
+/** "13 1/2 in": on a phone the unit is in the column's heading, and read out only to screen readers. */
+function Length({ text }: { text: string }) {
+  const m = /^(.*) (in|mm)$/.exec(text);
+  if (!m) return <>{text}</>;
+  return <>{m[1]}<span className="max-sm:sr-only"> {m[2]}</span></>;
 }
 
 type FieldName = "section" | "length" | "width" | "height" | "method" | "hullNumber" | "measuredOn";
