@@ -131,13 +131,13 @@ export default function DigestDraft({ loaderData, actionData }: Route.ComponentP
                 <h3 className="border-b-2 border-deep-900 pb-1 text-step-1 font-semibold">{sec.name}</h3>
                 <ol className="divide-y divide-cloth-200">
                   {ins.map((e, i) => (
-                    <li key={e.writeupId} className={`flex items-start gap-3 py-3 ${e.included ? "" : "opacity-60"}`} data-entry={e.slug}>
+                    <li key={e.writeupId} className="flex items-start gap-3 py-3" data-entry={e.slug}>
                       <Form method="post" preventScrollReset className="flex shrink-0 gap-1">
                         <input type="hidden" name="writeupId" value={e.writeupId} />
                         <ArrowButton intent="up" title={e.title} disabled={busy || i === 0} />
                         <ArrowButton intent="down" title={e.title} disabled={busy || i === ins.length - 1} />
                       </Form>
-                      <div className="min-w-0 flex-1">
+                      <div className={`min-w-0 flex-1 ${e.included ? "" : "opacity-60"}`}>
                         <p className={`font-serif font-semibold ${e.included ? "text-deep-900" : "line-through"}`}>
                           <Link to={`/writeups/${e.slug}`} className="text-inherit no-underline hover:underline">{e.title}</Link>
                         </p>

@@ -90,6 +90,7 @@ describe("the yearly digest", () => {
     await page.getByLabel("The editor's letter").fill("Dear members,\n\nA year of **careful** work on our boats. Thank you all.\n\n*Ruth*");
     await page.getByRole("button", { name: "Save the letter" }).click();
     await page.getByText("The letter is saved.").waitFor();
+    await page.screenshot({ path: screenshotPath("digest-draft"), fullPage: true });
 
     // Preview: what members will read, in the order chosen.
     await page.getByRole("link", { name: "Preview and issue" }).click();
@@ -162,6 +163,7 @@ describe("the yearly digest", () => {
     await other.getByRole("heading", { level: 1, name: "Stop the yearly digest?" }).waitFor();
     await other.getByRole("button", { name: "Stop sending me the digest" }).click();
     await other.getByRole("heading", { level: 1, name: "You will not receive the digest" }).waitFor();
+    await other.screenshot({ path: screenshotPath("digest-unsubscribed") });
     await stranger.close();
     const [ruth] = await query<{ digest_opt_in: boolean }>("select digest_opt_in from users where email = $1", [RUTH]);
     expect(ruth.digest_opt_in).toBe(false);
