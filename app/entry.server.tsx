@@ -5,7 +5,7 @@ import type { RenderToPipeableStreamOptions } from "react-dom/server";
 import { renderToPipeableStream } from "react-dom/server";
 import { type EntryContext, type HandleDataRequestFunction, type HandleErrorFunction, isRouteErrorResponse, ServerRouter } from "react-router";
 import { NonceContext } from "./components/nonce";
-import { isDatabaseUnavailable } from "./db/client.server";
+import { noteIfDatabaseUnavailable } from "./db/client.server";
 import { RETRY_AFTER_SECONDS } from "./services/db-outage.server";
 import { env } from "./services/env.server";
 import { startOutboxWorker } from "./services/outbox-worker.server";
@@ -77,6 +77,6 @@ export const handleDataRequest: HandleDataRequestFunction = (response) => {
 // (app/services/db-outage.server.ts) and logged once by the pool, not once per request here.
 export const handleError: HandleErrorFunction = (error, { request }) => {
   const cause = isRouteErrorResponse(error) && (error as { error?: unknown }).error ? (error as { error?: unknown }).error : error;
-  if (request.signal.aborted || isDatabaseUnavailable(cause)) return;
+  if (noteIfDatabaseUnavailable(cause) || request.signal.aborted) return;
   console.error(cause);
 };

@@ -6,7 +6,7 @@ import "./app.css";
 import { DatabaseOutagePage } from "./components/db-outage";
 import { useNonce } from "./components/nonce";
 import { SiteFooter, SiteHeader } from "./components/site-chrome";
-import { isDatabaseOutage } from "./domain/db-outage";
+import { databaseOutageFrom } from "./domain/db-outage";
 import { CLASS_NAME } from "./domain/hulls";
 import { can } from "./domain/permissions";
 import { databaseOutage } from "./services/db-outage.server";
@@ -65,9 +65,8 @@ export default function App() {
 }
 
 export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
-  if (isRouteErrorResponse(error) && error.status === 503 && isDatabaseOutage(error.data)) {
-    return <DatabaseOutagePage outage={error.data} />;
-  }
+  const outage = isRouteErrorResponse(error) && error.status === 503 ? databaseOutageFrom(error.data) : null;
+  if (outage) return <DatabaseOutagePage outage={outage} />;
   let title = "Something went wrong";
   let detail = "The page could not be shown. Try again in a moment; if it keeps happening, tell the class moderators.";
   if (isRouteErrorResponse(error)) {

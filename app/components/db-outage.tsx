@@ -44,11 +44,11 @@ export function DatabaseOutagePage({ outage }: { outage: DatabaseOutage }) {
           ))}
           <button type="submit" className={buttonClass}>Send again</button>
         </form>
-      ) : (
+      ) : outage.page ? (
         <p className="mt-8">
-          <a href={outage.action} className="font-medium">Try this page again</a>
+          <a href={outage.page} className="font-medium">Try this page again</a>
         </p>
-      )}
+      ) : null}
       <p className="mt-8">
         <Link to="/" className="font-medium">Back to the home page</Link>
       </p>

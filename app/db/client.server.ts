@@ -55,6 +55,18 @@ export async function watchDatabase<T>(fn: () => Promise<T>): Promise<{ result: 
   return { result, unavailable: watch.unavailable };
 }
 
+/**
+ * Tells the current watch that `error` found the database unreachable, for errors from a
+ * connection this module did not make (a pool of a model's own): entry.server's handleError passes
+ * every error it sees here.
+ */
+export function noteIfDatabaseUnavailable(error: unknown): boolean {
+  if (!isDatabaseUnavailable(error)) return false;
+  const watch = watches.getStore();
+  if (watch && !watch.unavailable) watch.unavailable = error;
+  return true;
+}
+
 /** The state of one pool's database as its queries last found it. */
 export type DatabaseState = { up: boolean; since: number; lastError: string | null };
 const states = new WeakMap<pg.Pool, DatabaseState>();

@@ -17,6 +17,8 @@ export type DatabaseOutage = {
   posted: boolean;
   /** Where the form was sent, to send it again. */
   action: string;
+  /** The page to try again (for a call to /api/ made from a page: that page, when known). */
+  page: string | null;
   /** What the form held, except passwords and tokens. */
   fields: { name: string; value: string }[];
   /** True when a password or token field was left out of `fields`. */
@@ -24,6 +26,27 @@ export type DatabaseOutage = {
   retryAfterSeconds: number;
 };
 
-export function isDatabaseOutage(value: unknown): value is DatabaseOutage {
-  return !!value && typeof value === "object" && (value as { kind?: unknown }).kind === DATABASE_OUTAGE.kind;
+/**
+ * The outage described by an error response's data, or null. The data is the object itself (a
+ * page or its data request) or, for an /api/ answer that reached a fetcher, its JSON text.
+ */
+export function databaseOutageFrom(value: unknown): DatabaseOutage | null {
+  if (typeof value === "string") {
+    try {
+      value = JSON.parse(value);
+    } catch {
+      return null;
+    }
+  }
+  if (!value || typeof value !== "object" || (value as { kind?: unknown }).kind !== DATABASE_OUTAGE.kind) return null;
+  const v = value as Partial<DatabaseOutage>;
+  return {
+    kind: DATABASE_OUTAGE.kind,
+    posted: v.posted === true,
+    action: typeof v.action === "string" && v.action.startsWith("/") && !v.action.startsWith("//") ? v.action : "/",
+    page: typeof v.page === "string" && v.page.startsWith("/") && !v.page.startsWith("//") ? v.page : null,
+    fields: Array.isArray(v.fields) ? v.fields.filter((f) => f && typeof f.name === "string" && typeof f.value === "string") : [],
+    secretsLeftOut: v.secretsLeftOut === true,
+    retryAfterSeconds: typeof v.retryAfterSeconds === "number" ? v.retryAfterSeconds : 30,
+  };
 }

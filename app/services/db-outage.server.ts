@@ -19,7 +19,7 @@ function wantsJson(request: Request): boolean {
 }
 
 function copyOfForm(request: Request): Request | null {
-  if (request.method === "GET" || request.method === "HEAD" || wantsJson(request)) return null;
+  if (request.method === "GET" || request.method === "HEAD") return null;
   const type = request.headers.get("content-type") ?? "";
   const length = Number(request.headers.get("content-length") ?? NaN);
   if (!/^application\/x-www-form-urlencoded|^multipart\/form-data/i.test(type)) return null;
@@ -47,23 +47,41 @@ async function fieldsOf(copy: Request | null): Promise<Pick<DatabaseOutage, "fie
   return { fields, secretsLeftOut };
 }
 
-/** The 503 answer: JSON for the API, otherwise the root error boundary's outage page. */
+/**
+ * The page the reader was on, for a request made from it (a fetcher's call to /api/...): the
+ * Referer, when it is an address of this site.
+ */
+function pageOf(request: Request): string | null {
+  const referer = request.headers.get("referer");
+  if (!referer) return null;
+  try {
+    const from = new URL(referer);
+    return from.origin === new URL(request.url).origin ? `${from.pathname}${from.search}` : null;
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * The 503 answer: JSON `{ error, message, retryAfterSeconds }` for the API, otherwise the root
+ * error boundary's outage page. The JSON carries the outage page's content as well: a page whose
+ * fetcher met the outage shows the root error boundary, which then gives back what was typed.
+ */
 export async function outageResponse(request: Request, copy: Request | null = null): Promise<Response | ReturnType<typeof data<DatabaseOutage>>> {
   const headers = { "Retry-After": String(RETRY_AFTER_SECONDS), "Cache-Control": "no-store" };
-  if (wantsJson(request)) {
-    return Response.json(
-      { error: "database-unavailable", message: DATABASE_OUTAGE.apiMessage, retryAfterSeconds: RETRY_AFTER_SECONDS },
-      { status: 503, headers },
-    );
-  }
   const url = new URL(request.url);
+  const address = `${url.pathname.replace(/\.data$/, "")}${url.search}`;
   const outage: DatabaseOutage = {
     kind: DATABASE_OUTAGE.kind,
     posted: request.method !== "GET" && request.method !== "HEAD",
-    action: `${url.pathname.replace(/\.data$/, "")}${url.search}`,
+    action: address,
+    page: wantsJson(request) ? pageOf(request) : address,
     ...(await fieldsOf(copy)),
     retryAfterSeconds: RETRY_AFTER_SECONDS,
   };
+  if (wantsJson(request)) {
+    return Response.json({ error: "database-unavailable", message: DATABASE_OUTAGE.apiMessage, ...outage }, { status: 503, headers });
+  }
   return data(outage, { status: 503, headers });
 }
 

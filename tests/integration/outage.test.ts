@@ -45,6 +45,25 @@ describe("a database outage", () => {
     expect(api.retryAfter).toMatch(/^\d+$/);
     expect(JSON.parse(api.text)).toMatchObject({ error: "database-unavailable" });
 
+    // A comment sent by the page's script: the JSON carries what was typed, for the page to give back.
+    const comment = await get(`/api/writeups/${slug}/comments`, {
+      method: "POST",
+      body: new URLSearchParams({ intent: "post", body: "Same fix on my hull, held all season." }),
+      headers: { "content-type": "application/x-www-form-urlencoded", origin: app.baseUrl, referer: `${app.baseUrl}/writeups/${slug}` },
+    });
+    expect(comment.status).toBe(503);
+    expect(JSON.parse(comment.text)).toMatchObject({
+      error: "database-unavailable",
+      posted: true,
+      page: `/writeups/${slug}`,
+      fields: expect.arrayContaining([{ name: "body", value: "Same fix on my hull, held all season." }]),
+    });
+
+    // The fit search reads through a pool of its own; its failure is answered the same way.
+    const fit = await get("/api/fit?length=10.2&width=6.8&height=8.7&unit=in");
+    expect(fit.status).toBe(503);
+    expect(JSON.parse(fit.text)).toMatchObject({ error: "database-unavailable" });
+
     const health = await get("/api/health");
     expect(health.status).toBe(503);
     expect(JSON.parse(health.text)).toMatchObject({ ok: false, database: "down" });
