@@ -14,6 +14,8 @@ export type DigestDocumentProps = {
   photoSrc: (key: string) => string | null;
   /** A draft in preview: marked as such on every page it could be printed from. */
   draft?: boolean;
+  /** Inside a page that has its own h1 (the preview): the cover's title is an h2. */
+  embedded?: boolean;
 };
 
 function plural(n: number, one: string, many = `${one}s`) {
@@ -121,7 +123,8 @@ function Entry({ entry, appUrl, photoSrc }: { entry: DigestEntry; appUrl: string
   );
 }
 
-export function DigestDocument({ snapshot, className, appUrl, photoSrc, draft = false }: DigestDocumentProps) {
+export function DigestDocument({ snapshot, className, appUrl, photoSrc, draft = false, embedded = false }: DigestDocumentProps) {
+  const CoverTitle = embedded ? "h2" : "h1";
   const f = snapshot.figures;
   const included = snapshot.sections.reduce((n, x) => n + x.entries.length, 0);
   const cautions = cautionsFor(snapshot.sections.map((x) => x.slug));
@@ -133,10 +136,10 @@ export function DigestDocument({ snapshot, className, appUrl, photoSrc, draft = 
         <div className="dg-cover-band">
           <p className="dg-kicker">{className} owners' association</p>
         </div>
-        <h1 className="dg-cover-title">
+        <CoverTitle className="dg-cover-title">
           <span className="dg-title">The year's work</span>
           <span className="dg-year">{snapshot.year}</span>
-        </h1>
+        </CoverTitle>
         <p className="dg-cover-sub">
           {title}
           {snapshot.edition > 1 ? " (a correction)" : ""}

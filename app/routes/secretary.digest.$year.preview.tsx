@@ -131,7 +131,7 @@ export default function DigestPreview({ loaderData, actionData }: Route.Componen
       </section>
 
       <div className="rounded-lg border border-cloth-200 bg-white p-6 shadow-sm sm:p-10">
-        <DigestDocument snapshot={snapshot} className={className} appUrl={appUrl} photoSrc={(key) => `/media/${key}`} draft />
+        <DigestDocument snapshot={snapshot} className={className} appUrl={appUrl} photoSrc={(key) => `/media/${key}`} draft embedded />
       </div>
     </div>
   );
