@@ -68,7 +68,10 @@ export function SiteFooter() {
     <footer className="no-print mt-12 border-t border-cloth-200 bg-cloth-100">
       <div className="mx-auto flex max-w-5xl flex-wrap items-center justify-between gap-4 px-4 py-6 text-step--1 text-ink-soft sm:px-6">
         <p>Written by owners, for owners. Reviewed by volunteer moderators before publication.</p>
-        <Link to="/safety" className="font-medium text-bootstripe-600">Safety and the limits of this advice</Link>
+        <nav aria-label="More" className="flex flex-wrap gap-x-5 gap-y-2">
+          <Link to="/digest" className="font-medium text-bootstripe-600">The yearly digests</Link>
+          <Link to="/safety" className="font-medium text-bootstripe-600">Safety and the limits of this advice</Link>
+        </nav>
       </div>
     </footer>
   );

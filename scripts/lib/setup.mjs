@@ -36,9 +36,31 @@ export function ensureDependencies() {
   const stale =
     !fs.existsSync(marker) || fs.statSync(marker).mtimeMs < fs.statSync(lock).mtimeMs;
   if (!stale) return;
-  log("installing dependencies (npm ci) ...");
-  if (run("npm", ["ci", "--no-audit", "--no-fund"]) !== 0) {
-    throw new SetupError("npm ci failed (see above). Is the npm registry reachable?");
+  // One install at a time: a second `npm test` started meanwhile waits for the first one's npm ci
+  // instead of emptying node_modules under it.
+  const lockDir = path.join(root, ".npm-ci.lock");
+  const waitUntil = Date.now() + 15 * 60_000;
+  for (;;) {
+    try {
+      fs.mkdirSync(lockDir);
+      break;
+    } catch (error) {
+      if (error.code !== "EEXIST") throw error;
+      const age = Date.now() - fs.statSync(lockDir).mtimeMs;
+      if (age > 15 * 60_000) fs.rmSync(lockDir, { recursive: true, force: true });
+      else if (Date.now() > waitUntil) throw new SetupError(`another npm ci has held ${lockDir} for too long; remove it if no install is running`);
+      else Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 2000);
+    }
+  }
+  try {
+    const stillStale = !fs.existsSync(marker) || fs.statSync(marker).mtimeMs < fs.statSync(lock).mtimeMs;
+    if (!stillStale) return;
+    log("installing dependencies (npm ci) ...");
+    if (run("npm", ["ci", "--no-audit", "--no-fund"]) !== 0) {
+      throw new SetupError("npm ci failed (see above). Is the npm registry reachable?");
+    }
+  } finally {
+    fs.rmSync(lockDir, { recursive: true, force: true });
   }
 }
 
