@@ -67,12 +67,12 @@ describe("slugify", () => {
 describe("the measurement form", () => {
   const today = "2026-03-20";
   const schema = measurementSchema("in", today);
-  const valid = { length: "13 1/2", width: "343 mm", height: "1 ft 1 1/2 in", method: "story_stick", hullNumber: "402", measuredOn: "2025-06-14" };
+  const valid = { section: "0", length: "13 1/2", width: "343 mm", height: "1 ft 1 1/2 in", method: "story_stick", hullNumber: "402", measuredOn: "2025-06-14" };
 
   it("reads sizes as typed, in millimetres exactly (NIST Handbook 44 Appendix C: 1 in = 25.4 mm)", () => {
     const r = schema.safeParse(valid);
     expect(r.success).toBe(true);
-    if (r.success) expect(r.data).toEqual({ ...valid, length: 342.9, width: 343, height: 342.9, hullNumber: 402 });
+    if (r.success) expect(r.data).toEqual({ ...valid, section: 0, length: 342.9, width: 343, height: 342.9, hullNumber: 402 });
     const mm = measurementSchema("mm", today).safeParse({ ...valid, length: "343", width: "34.3 cm", height: "13 1/2 in" });
     expect(mm.success && [mm.data.length, mm.data.width, mm.data.height]).toEqual([343, 343, 342.9]);
   });
@@ -85,6 +85,15 @@ describe("the measurement form", () => {
     expect(fields.width).toContain("Could not read");
     expect(fields.hullNumber).toBe("Hull numbers run from 1 to 612.");
     expect(fields.measuredOn).toBe("That date is in the future.");
+  });
+
+  it("takes a part of the space it has, and only those", () => {
+    const twoParts = measurementSchema("in", today, 2);
+    expect(twoParts.safeParse({ ...valid, section: "1" }).success).toBe(true);
+    const beyond = twoParts.safeParse({ ...valid, section: "2" });
+    expect(beyond.success).toBe(false);
+    expect(beyond.error?.issues[0]).toMatchObject({ path: ["section"], message: "Choose one of this space's parts." });
+    expect(schema.safeParse({ ...valid, section: undefined }).success).toBe(false);
   });
 
   it("accepts tomorrow (time zones) but not before the class was built", () => {
