@@ -105,7 +105,7 @@ describe("an owner levels his boat and sizes the cable", () => {
     expect(Number(await row.locator("[data-shift-mm]").getAttribute("data-shift-mm")) / 25.4).toBeCloseTo(-2280 / 62, 2);
     expect(await row.textContent()).toContain("36 3/4 in to port");
     expect(await row.textContent()).toContain("11 3/4 in to port");
-    await row.getByRole("link", { name: /Try moving/ }).click();
+    await row.getByRole("link", { name: /^Try it: move / }).click();
     await page.waitForURL(/move=/);
     const result = page.locator("[data-calculation=weight-move]");
     await result.waitFor();
