@@ -129,6 +129,8 @@ function form(fields: Record<string, string | string[]>): string {
 
 type Ledger = {
   run: string;
+  /** 503 answers seen by the load, and how many of them said what they should (text, Retry-After). */
+  outage: { pages: number; pagesRight: number; api: number; apiRight: number };
   sentComments: number;
   ackedComments: Set<string>;
   draftUsers: Set<Member>;
@@ -158,9 +160,23 @@ function startLoad(app: BenchApp, ctx: Awaited<ReturnType<typeof prepare>>, ledg
   // the order of a draft's saves is the order of their acknowledgements.
   const freeDrafters = ctx.members.slice();
 
+  // Every 503 the load meets is checked: the page says what happened, the API answers { error },
+  // both with Retry-After.
+  const checkPage = (status: number, body: string, _c: object, headers?: Record<string, unknown>) => {
+    if (status !== 503) return;
+    ledger.outage.pages++;
+    if (body.includes("The database is not answering") && headers?.["retry-after"]) ledger.outage.pagesRight++;
+  };
+  const checkApi = (status: number, body: string, _c: object, headers?: Record<string, unknown>) => {
+    if (status !== 503) return;
+    ledger.outage.api++;
+    try {
+      if (typeof JSON.parse(body).error === "string" && headers?.["retry-after"]) ledger.outage.apiRight++;
+    } catch { /* not JSON */ }
+  };
   const requests: Record<Kind, autocannon.Request[]> = {
-    pages: ctx.pages.map((path) => ({ method: "GET", path })),
-    search: [{ method: "GET", setupRequest: (req) => ({ ...req, path: `/api/search?q=${encodeURIComponent(pick(SEARCH_TERMS))}` }) }],
+    pages: ctx.pages.map((path) => ({ method: "GET", path, onResponse: checkPage })),
+    search: [{ method: "GET", setupRequest: (req) => ({ ...req, path: `/api/search?q=${encodeURIComponent(pick(SEARCH_TERMS))}` }), onResponse: checkApi }],
     fit: [{
       method: "GET",
       setupRequest: (req) => {
@@ -325,7 +341,7 @@ async function servesAgain(app: BenchApp, ctx: Awaited<ReturnType<typeof prepare
 
 async function runPlain(app: BenchApp, ctx: Awaited<ReturnType<typeof prepare>>) {
   out(`\n=== load, no fault: ${CONNECTIONS} connections for ${SECONDS} s ===`);
-  const ledger: Ledger = { run: "none", sentComments: 0, ackedComments: new Set(), draftUsers: new Set() };
+  const ledger: Ledger = { run: "none", outage: { pages: 0, pagesRight: 0, api: 0, apiRight: 0 }, sentComments: 0, ackedComments: new Set(), draftUsers: new Set() };
   const results = await startLoad(app, ctx, ledger, SECONDS);
   report("none", results, { errors: true });
   await verify(app, ledger);
@@ -334,7 +350,7 @@ async function runPlain(app: BenchApp, ctx: Awaited<ReturnType<typeof prepare>>)
 
 async function runDatabaseFault(app: BenchApp, ctx: Awaited<ReturnType<typeof prepare>>) {
   out(`\n=== load with PostgreSQL stopped at ${DOWN_AT} s for ${DOWN_FOR} s: ${CONNECTIONS} connections for ${FAULT_SECONDS} s ===`);
-  const ledger: Ledger = { run: "db", sentComments: 0, ackedComments: new Set(), draftUsers: new Set() };
+  const ledger: Ledger = { run: "db", outage: { pages: 0, pagesRight: 0, api: 0, apiRight: 0 }, sentComments: 0, ackedComments: new Set(), draftUsers: new Set() };
   const pid = app.server.pid;
   const load = startLoad(app, ctx, ledger, FAULT_SECONDS);
   const fault = (async () => {
@@ -363,9 +379,7 @@ async function runDatabaseFault(app: BenchApp, ctx: Awaited<ReturnType<typeof pr
     } catch { /* not JSON */ }
     const postOk = posted.status === 503;
     out(`  [fault] while down (status 0: no answer before the database came back): page ${page.status} (Retry-After ${page.retryAfter}), /api/search ${api.status}: ${api.text.slice(0, 120)}, comment POST ${posted.status}`);
-    figure("load db: page while down is the 503 outage page with Retry-After (1 = yes)", pageOk ? 1 : 0, "bool", { op: ">=", value: 1 });
-    figure("load db: API while down is JSON 503 { error } with Retry-After (1 = yes)", apiOk ? 1 : 0, "bool", { op: ">=", value: 1 });
-    figure("load db: comment POST while down answered 503 (1 = yes)", postOk ? 1 : 0, "bool", { op: ">=", value: 1 });
+    out(`  [fault] single checks while down: page ${pageOk ? "right" : "not checked or wrong"}, API ${apiOk ? "right" : "not checked or wrong"}, comment ${postOk ? "503" : "not checked"} (the load's own 503 answers are checked below)`);
     const wait = DOWN_FOR * 1000 - (Date.now() - stopped);
     if (wait > 0) await new Promise((r) => setTimeout(r, wait));
     await app.startDatabase();
@@ -384,6 +398,12 @@ async function runDatabaseFault(app: BenchApp, ctx: Awaited<ReturnType<typeof pr
   })();
   const [results] = await Promise.all([load, fault]);
   report("db", results, { errors: false });
+  const o = ledger.outage;
+  out(`  503 answers met by the load: ${o.pages} pages (${o.pagesRight} with the outage text and Retry-After), ${o.api} search API answers (${o.apiRight} JSON { error } with Retry-After)`);
+  figure("load db: 503 pages met by the load", o.pages, "count", { op: ">=", value: 1 });
+  figure("load db: of those, the outage page with Retry-After", o.pagesRight, "count", { op: ">=", value: Math.max(1, o.pages) });
+  figure("load db: 503 search API answers met by the load", o.api, "count", { op: ">=", value: 1 });
+  figure("load db: of those, JSON { error } with Retry-After", o.apiRight, "count", { op: ">=", value: Math.max(1, o.api) });
   figure("load db: same server process before and after (1 = yes)", app.server.pid === pid && app.serverAlive() ? 1 : 0, "bool", { op: ">=", value: 1 });
   await verify(app, ledger);
   await servesAgain(app, ctx, "db");
@@ -409,7 +429,7 @@ function signUp(app: BenchApp, i: number): Promise<number> {
 async function runMailFault(app: BenchApp, ctx: Awaited<ReturnType<typeof prepare>>) {
   const seconds = Math.min(FAULT_SECONDS, 30);
   out(`\n=== load with the SMTP stand-in stopped: ${CONNECTIONS} connections for ${seconds} s, ${SIGNUPS} sign-ups while it is down ===`);
-  const ledger: Ledger = { run: "smtp", sentComments: 0, ackedComments: new Set(), draftUsers: new Set() };
+  const ledger: Ledger = { run: "smtp", outage: { pages: 0, pagesRight: 0, api: 0, apiRight: 0 }, sentComments: 0, ackedComments: new Set(), draftUsers: new Set() };
   const before = countMail(app.mailDir);
   const load = startLoad(app, ctx, ledger, seconds);
   const fault = (async () => {
