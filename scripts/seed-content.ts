@@ -65,6 +65,8 @@ const writeupSchema = z.object({
     .array(z.object({ name: z.string(), qty: z.number().default(1), weightLb: z.number().optional(), note: z.string().default("") }))
     .default([]),
   spaces: z.array(z.string()).default([]),
+  // Hulls of other members who did the same job on their boat ("done on my boat too").
+  doneToo: z.array(z.number().int().min(1).max(612)).default([]),
 });
 
 const inches = z.number().positive();
@@ -145,6 +147,7 @@ export async function seedDemo(db: Db, dir: string): Promise<SeedCounts> {
 
     const userIds = new Map<string, number>();
     const boatIds = new Map<number, number>();
+    const hullOwners = new Map<number, number>();
     for (const m of members) {
       const email = m.email.toLowerCase();
       const values = { email, displayName: m.displayName, creditAs: m.credit ?? null, units: m.units, digestOptIn: m.digest, emailVerifiedAt: new Date("2024-01-01T00:00:00Z"), passwordHash: demoHash, ...(m.joined ? { createdAt: m.joined } : {}) };
@@ -160,6 +163,7 @@ export async function seedDemo(db: Db, dir: string): Promise<SeedCounts> {
           .onConflictDoUpdate({ target: s.boats.hullNumber, set: { name: b.name ?? null } })
           .returning({ id: s.boats.id });
         boatIds.set(b.hull, boat.id);
+        if (!hullOwners.has(b.hull)) hullOwners.set(b.hull, row.id);
         await tx.insert(s.boatOwners).values({ boatId: boat.id, userId: row.id }).onConflictDoNothing();
       }
     }
@@ -265,6 +269,12 @@ export async function seedDemo(db: Db, dir: string): Promise<SeedCounts> {
         const spaceId = spaceIds.get(spaceSlug);
         if (!spaceId) throw new Error(`content-seed: writeups/${file} uses space ${spaceSlug}, which is not in spaces.yaml`);
         await tx.insert(s.writeupSpaces).values({ writeupId: row.id, spaceId });
+      }
+      await tx.delete(s.doneToo).where(eq(s.doneToo.writeupId, row.id));
+      for (const hull of w.doneToo) {
+        const owner = hullOwners.get(hull);
+        if (!owner) throw new Error(`content-seed: writeups/${file} says hull ${hull} did it too, but no member in members.yaml has that hull`);
+        await tx.insert(s.doneToo).values({ writeupId: row.id, hullNumber: hull, userId: owner, createdAt: values.createdAt });
       }
     }
 

@@ -257,7 +257,7 @@ describe("done on my boat too", () => {
     const nonsense = await postDoneToo({ intent: "record", hullNumber: "700" }, PRIYA);
     expect(nonsense.status).toBe(400);
     expect(String((await body(nonsense)).message)).toMatch(/1 to 612/);
-    const rows = await t.db.execute(sql`select 1 from done_too`);
+    const rows = await t.db.execute(sql`select 1 from done_too d join writeups w on w.id = d.writeup_id where w.slug = ${SLUG}`);
     expect(rows.rows.length).toBe(0);
   });
 
