@@ -762,6 +762,11 @@ function fitPool(pool: pg.Pool): pg.Pool {
     const settings = PLANNER_SETTINGS.map(([k, v]) => `-c ${k}=${v}`).join(" ");
     fit = new pg.Pool({ ...base, max: Math.min(base.max ?? 10, 4), options: [base.options, settings].filter(Boolean).join(" ") });
     fit.on("error", (err) => console.warn(`[db] fit search: idle client error: ${err.message}`));
+    // A checked-out client that loses its connection emits 'error' too, and an 'error' event that
+    // nobody listens to ends the process: the query's own promise still rejects and is answered.
+    fit.on("connect", (client) => {
+      client.on("error", (err) => console.warn(`[db] fit search: client error: ${err.message}`));
+    });
     fitPools.set(pool, fit);
   }
   return fit;

@@ -8,7 +8,7 @@ import { formatDate, SystemChips } from "~/components/writeup-card";
 import { db } from "~/db/index.server";
 import { cautionsFor } from "~/domain/cautions";
 import { describeHullRange } from "~/domain/hulls";
-import { renderMarkdown } from "~/domain/markdown";
+import { renderMarkdownCached } from "~/services/rendered-markdown.server";
 import { formatLength, formatWeight } from "~/domain/units";
 import { getPublishedWriteup } from "~/models/writeups.server";
 import { loadConversation } from "./conversation.server";
@@ -27,7 +27,7 @@ export async function loader({ params, request }: Route.LoaderArgs) {
   return data({
     writeup: {
       ...rest,
-      html: renderMarkdown(bodyMarkdown).html,
+      html: renderMarkdownCached(bodyMarkdown).html,
       parts: writeup.parts.map((p) => ({ ...p, weight: p.weightKg === null ? "" : formatWeight(p.weightKg, units.weight) })),
       spaces: writeup.spaces.map((sp) => ({
         ...sp,
