@@ -44,7 +44,7 @@ async function main() {
   const pgBin = ensurePostgres();
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "sistership-test-"));
   fs.chmodSync(dir, 0o755);
-  const cluster = await startCluster({ bin: pgBin, dir, port: await freePort() });
+  const cluster = await startCluster({ bin: pgBin, dir, port: await freePort(), throwaway: true });
   let server = null;
   let standin = null;
   let photoStandin = null;

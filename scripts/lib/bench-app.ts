@@ -138,7 +138,7 @@ export async function startBenchApp(options: { buildDir: string; quiet?: boolean
   process.once("SIGTERM", interrupted);
 
   try {
-    cluster = await startCluster({ bin: pgBin, dir: pgDir, port: pgPort });
+    cluster = await startCluster({ bin: pgBin, dir: pgDir, port: pgPort, throwaway: true });
     cluster.createDatabase("bench");
     const databaseUrl = cluster.url("bench");
     const sessionSecret = crypto.randomBytes(32).toString("hex");
@@ -184,7 +184,7 @@ export async function startBenchApp(options: { buildDir: string; quiet?: boolean
         if (code !== 0) throw new Error(`pg_ctl stop failed (exit code ${code})`);
       },
       startDatabase: async () => {
-        const code = await pgCtl(pgBin, clusterStartArgs(pgDir, pgPort));
+        const code = await pgCtl(pgBin, clusterStartArgs(pgDir, pgPort, { throwaway: true }));
         if (code !== 0) throw new Error(`pg_ctl start failed (exit code ${code}); see ${pgDir}/postgres.log`);
       },
       stopMail: async () => {

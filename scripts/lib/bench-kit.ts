@@ -42,12 +42,12 @@ export async function benchServer(options: { sharedBuffers?: string } = {}): Pro
   fs.chmodSync(dir, 0o755);
   const bin = ensurePostgres();
   const port = await freePort();
-  let cluster = await startCluster({ bin, dir, port });
+  let cluster = await startCluster({ bin, dir, port, throwaway: true });
   if (options.sharedBuffers) {
     const set = cluster.psql(`alter system set shared_buffers = '${options.sharedBuffers}'`);
     if (set.status === 0) {
       cluster.stop();
-      cluster = await startCluster({ bin, dir, port });
+      cluster = await startCluster({ bin, dir, port, throwaway: true });
     }
   }
   return {

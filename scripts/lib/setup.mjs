@@ -149,10 +149,16 @@ function tail(file, lines = 25) {
   }
 }
 
-/** pg_ctl's arguments that start the cluster in `dir` on 127.0.0.1:port (as startCluster does). */
-export function clusterStartArgs(dir, port) {
+/**
+ * pg_ctl's arguments that start the cluster in `dir` on 127.0.0.1:port (as startCluster does).
+ * A throwaway cluster (tests, benchmarks) skips flushing to disk, which is faster and loses only
+ * what a crash of the machine would lose anyway; the cluster `npm start` keeps members' posts in
+ * stays durable.
+ */
+export function clusterStartArgs(dir, port, { throwaway = false } = {}) {
   dir = path.resolve(dir);
-  const opts = `-c listen_addresses=127.0.0.1 -p ${port} -k ${dir} -c fsync=off -c full_page_writes=off`;
+  const speed = throwaway ? " -c fsync=off -c full_page_writes=off" : "";
+  const opts = `-c listen_addresses=127.0.0.1 -p ${port} -k ${dir}${speed}`;
   return ["-D", path.join(dir, "data"), "-l", path.join(dir, "postgres.log"), "-o", opts, "-w", "-t", "30", "start"];
 }
 
@@ -160,7 +166,7 @@ export function clusterStartArgs(dir, port) {
  * A PostgreSQL cluster of the project's own: created when missing, started on 127.0.0.1:port
  * with its socket inside the cluster folder. Returns { url(db), stop() }.
  */
-export async function startCluster({ bin, dir, port }) {
+export async function startCluster({ bin, dir, port, throwaway = false }) {
   dir = path.resolve(dir);
   const data = path.join(dir, "data");
   const logFile = path.join(dir, "postgres.log");
@@ -198,7 +204,7 @@ export async function startCluster({ bin, dir, port }) {
         "Stop whatever uses it, or pick another port with SISTERSHIP_PG_PORT.",
     );
   }
-  const r = pgRun(bin, "pg_ctl", clusterStartArgs(dir, port));
+  const r = pgRun(bin, "pg_ctl", clusterStartArgs(dir, port, { throwaway }));
   if (r.status !== 0) {
     throw new SetupError(
       `PostgreSQL would not start. The last lines of its log (${logFile}):\n\n${tail(logFile)}`,
