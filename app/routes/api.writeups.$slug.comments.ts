@@ -1,13 +1,12 @@
 import { parseWithZod } from "@conform-to/zod/v4";
-import { data, redirect } from "react-router";
 import type { Route } from "./+types/api.writeups.$slug.comments";
 import { db } from "~/db/index.server";
 import { commentSchema, deleteCommentSchema } from "~/domain/conversation-forms";
 import { addComment, deleteComment, findPublishedWriteupRef, getComment, listComments } from "~/models/comments.server";
 import { hitLimit, LIMITS } from "~/models/rate-limits.server";
-import { getUser, redirectWithNotice } from "~/services/session.server";
+import { redirectWithNotice } from "~/services/session.server";
 import { notFound } from "./api-errors.server";
-import { canModerateComments, fromDocument, json, redirectWithDraft, signInPath, writeupPath } from "./conversation.server";
+import { canModerateComments, conversationPoster, json, redirectWithDraft, writeupPath } from "./conversation.server";
 import { readForm } from "~/services/form-body.server";
 
 // GET /api/writeups/:slug/comments: the comments of a published write-up, oldest first.
@@ -25,17 +24,9 @@ export async function loader({ params }: Route.LoaderArgs) {
 //   intent=delete, commentId=...    its author or a moderator removes a comment
 // Answers JSON to the page's fetcher; a plain HTML form (no JavaScript) is sent back to the page.
 export async function action({ request, params }: Route.ActionArgs) {
-  const document = fromDocument(request);
-  const writeup = await findPublishedWriteupRef(db, params.slug);
-  if (!writeup) {
-    if (document) throw data("There is no published write-up at this address.", { status: 404 });
-    return notFound("There is no published write-up at this address.");
-  }
-  const user = await getUser(request);
-  if (!user) {
-    if (document) return redirect(signInPath(writeup.slug, "comment-form"));
-    return json({ error: "sign-in-needed", message: "Sign in to comment." }, 401);
-  }
+  const poster = await conversationPoster(request, params.slug, "comment-form", "Sign in to comment.");
+  if ("answer" in poster) return poster.answer;
+  const { document, writeup, user } = poster;
   const formData = await readForm(request);
 
   if (formData.get("intent") === "delete") {

@@ -1,13 +1,12 @@
 import { parseWithZod } from "@conform-to/zod/v4";
-import { data, redirect } from "react-router";
 import type { Route } from "./+types/api.writeups.$slug.done-too";
 import { db } from "~/db/index.server";
 import { doneTooSchema } from "~/domain/conversation-forms";
 import { findPublishedWriteupRef } from "~/models/comments.server";
 import { doneTooSummary, ownsHull, recordDoneToo, takeBackDoneToo } from "~/models/done-too.server";
-import { getUser, redirectWithNotice } from "~/services/session.server";
+import { redirectWithNotice } from "~/services/session.server";
 import { notFound } from "./api-errors.server";
-import { fromDocument, json, signInPath, writeupPath } from "./conversation.server";
+import { conversationPoster, json, writeupPath } from "./conversation.server";
 import { readForm } from "~/services/form-body.server";
 
 function summaryJson(summary: Awaited<ReturnType<typeof doneTooSummary>>) {
@@ -24,17 +23,9 @@ export async function loader({ params }: Route.LoaderArgs) {
 // POST /api/writeups/:slug/done-too  intent=record|take-back, hullNumber=...
 // A signed-in member counts one of their own registered hulls (or takes it back).
 export async function action({ request, params }: Route.ActionArgs) {
-  const document = fromDocument(request);
-  const writeup = await findPublishedWriteupRef(db, params.slug);
-  if (!writeup) {
-    if (document) throw data("There is no published write-up at this address.", { status: 404 });
-    return notFound("There is no published write-up at this address.");
-  }
-  const user = await getUser(request);
-  if (!user) {
-    if (document) return redirect(signInPath(writeup.slug, "done-too"));
-    return json({ error: "sign-in-needed", message: "Sign in to count your boat." }, 401);
-  }
+  const poster = await conversationPoster(request, params.slug, "done-too", "Sign in to count your boat.");
+  if ("answer" in poster) return poster.answer;
+  const { document, writeup, user } = poster;
   const back = writeupPath(writeup.slug, "done-too");
   const answer = async (status: number, body: Record<string, unknown>) => {
     if (document) return redirectWithNotice(request, back, String(body.message));

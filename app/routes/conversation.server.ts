@@ -1,15 +1,16 @@
 // The conversation under a published write-up (comments and "done on my boat too"), as its page
 // shows it, and what the two resource routes under /api/writeups/:slug/ share.
-import { createCookie, redirect } from "react-router";
+import { createCookie, data, redirect } from "react-router";
 import type { CommentDraft, CommentView } from "~/components/comments";
 import type { DoneTooView } from "~/components/done-too";
 import { db } from "~/db/index.server";
 import { can } from "~/domain/permissions";
-import { listComments } from "~/models/comments.server";
+import { findPublishedWriteupRef, listComments } from "~/models/comments.server";
 import { doneTooSummary } from "~/models/done-too.server";
 import { listBoatsOf } from "~/models/users.server";
 import { env } from "~/services/env.server";
 import { getUser, readNotice, type SessionUser } from "~/services/session.server";
+import { notFound } from "./api-errors.server";
 
 export type WriteupRef = { id: number; slug: string; authorHull: number | null };
 
@@ -39,6 +40,25 @@ export function signInPath(slug: string, anchor: string) {
 
 export function json(body: unknown, status = 200, headers?: HeadersInit) {
   return Response.json(body, { status, headers });
+}
+
+/**
+ * The start both conversation actions share: the published write-up and the signed-in member, or
+ * the answer that ends the request (404; a visitor is sent to sign in, or told so in JSON).
+ */
+export async function conversationPoster(request: Request, slug: string, anchor: string, signInMessage: string) {
+  const document = fromDocument(request);
+  const writeup = await findPublishedWriteupRef(db, slug);
+  if (!writeup) {
+    if (document) throw data("There is no published write-up at this address.", { status: 404 });
+    return { answer: notFound("There is no published write-up at this address.") } as const;
+  }
+  const user = await getUser(request);
+  if (!user) {
+    if (document) return { answer: redirect(signInPath(writeup.slug, anchor)) } as const;
+    return { answer: json({ error: "sign-in-needed", message: signInMessage }, 401) } as const;
+  }
+  return { document, writeup, user } as const;
 }
 
 const loopback = /^https?:\/\/(127\.0\.0\.1|localhost|\[::1\])(:\d+)?(\/|$)/.test(env.APP_URL);

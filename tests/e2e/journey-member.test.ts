@@ -5,24 +5,19 @@
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import type { Browser, BrowserContext, Page } from "playwright-core";
 import sharp from "sharp";
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
-import { type AppServer, startAppServer } from "../support/app-server";
+import { beforeAll, describe, expect, it } from "vitest";
 import { signInAs } from "../support/auth";
-import { keepEvidenceOnFailure, launchBrowser, screenshotPath } from "../support/browser";
+import { screenshotPath } from "../support/browser";
+import { journeyOnItsOwnServer } from "../support/journey";
 import { medianOf, readSeedSpaces } from "../support/seed-spaces";
 
-let server: AppServer;
-let browser: Browser;
-let context: BrowserContext;
-let page: Page;
-const errors: string[] = [];
+const journey = journeyOnItsOwnServer("journey-member");
 const SLUG = "starboard-settee-aft-late-mk1";
 const TITLE = "A fiddled shelf over the starboard settee bay";
 
 async function count(table: string): Promise<number> {
-  const r = await server.database.pool.query(`select count(*)::int as n from ${table}`);
+  const r = await journey.server.database.pool.query(`select count(*)::int as n from ${table}`);
   return r.rows[0].n;
 }
 
@@ -35,19 +30,8 @@ async function photoFile(name: string, colour: { r: number; g: number; b: number
 const before: Record<string, number> = {};
 
 beforeAll(async () => {
-  [server, browser] = await Promise.all([startAppServer(), launchBrowser()]);
   for (const t of ["space_measurements", "photos", "writeups", "writeup_revisions"]) before[t] = await count(t);
-  context = await browser.newContext({ viewport: { width: 1280, height: 1000 } });
-  page = await context.newPage();
-  page.on("pageerror", (e) => errors.push(e.message));
-  page.on("console", (m) => { if (m.type() === "error" && !m.text().startsWith("Failed to load resource")) errors.push(m.text()); });
-  page.on("response", (r) => { if (r.status() >= 500) errors.push(`${r.status()} ${r.url()}`); });
-  page.on("dialog", (d) => { errors.push(`a dialog opened: ${d.message()}`); void d.dismiss(); });
-});
-beforeEach(keepEvidenceOnFailure("journey-member", () => page));
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
+  journey.page.on("dialog", (d) => { journey.errors.push(`a dialog opened: ${d.message()}`); void d.dismiss(); });
 });
 
 // The seeded measurements of the bay (content-seed/spaces.yaml) plus Hal's new one, in inches.
@@ -56,47 +40,47 @@ const mine = { lengthIn: 24.75, widthIn: 14.25, heightIn: 11.5 };
 
 describe("a member adds a measurement and writes up the job", () => {
   it("signs in", async () => {
-    await signInAs(page, "hal.dunmore@example.com", undefined, server.baseUrl);
-    await page.getByRole("button", { name: "Sign out", exact: true }).waitFor();
+    await signInAs(journey.page, "hal.dunmore@example.com", undefined, journey.server.baseUrl);
+    await journey.page.getByRole("button", { name: "Sign out", exact: true }).waitFor();
   });
 
   it("is told what is wrong with a size, next to the field, and keeps what he typed", async () => {
-    await page.goto(`${server.baseUrl}/spaces/${SLUG}`);
-    await page.getByRole("heading", { level: 1, name: seeded.name }).waitFor();
-    await page.waitForSelector("#measurement-form[novalidate]", { state: "attached" }); // hydrated
-    expect(await page.locator("#measurements tbody tr").count()).toBe(seeded.measurements!.length);
-    await page.getByLabel("Length (fore and aft)").fill("24 3/4");
-    await page.getByLabel("Width (athwartships)").fill("14 1/4");
-    await page.getByLabel("Height").fill("eleven and a half");
-    await page.getByLabel("Hull number of the boat measured").fill("211");
-    await page.getByRole("button", { name: "Add my measurement" }).click();
-    const height = page.getByLabel("Height");
+    await journey.page.goto(`${journey.server.baseUrl}/spaces/${SLUG}`);
+    await journey.page.getByRole("heading", { level: 1, name: seeded.name }).waitFor();
+    await journey.page.waitForSelector("#measurement-form[novalidate]", { state: "attached" }); // hydrated
+    expect(await journey.page.locator("#measurements tbody tr").count()).toBe(seeded.measurements!.length);
+    await journey.page.getByLabel("Length (fore and aft)").fill("24 3/4");
+    await journey.page.getByLabel("Width (athwartships)").fill("14 1/4");
+    await journey.page.getByLabel("Height").fill("eleven and a half");
+    await journey.page.getByLabel("Hull number of the boat measured").fill("211");
+    await journey.page.getByRole("button", { name: "Add my measurement" }).click();
+    const height = journey.page.getByLabel("Height");
     await expect.poll(() => height.getAttribute("aria-invalid")).toBe("true");
     const errorId = (await height.getAttribute("aria-describedby"))!.split(" ").find((id) => id.endsWith("-error"))!;
-    expect((await page.locator(`[id="${errorId}"]`).textContent())!.trim().length).toBeGreaterThan(5);
-    expect(await page.getByLabel("Length (fore and aft)").inputValue()).toBe("24 3/4");
+    expect((await journey.page.locator(`[id="${errorId}"]`).textContent())!.trim().length).toBeGreaterThan(5);
+    expect(await journey.page.getByLabel("Length (fore and aft)").inputValue()).toBe("24 3/4");
     expect(await count("space_measurements")).toBe(before.space_measurements);
   });
 
   it("adds the measurement with a photo, and the consensus moves to the new median", async () => {
-    await page.getByLabel("Height").fill("11 1/2");
-    await page.getByLabel("Tape").check();
-    await page.getByLabel("A photo (optional)").setInputFiles(await photoFile("tape-in-bay", { r: 170, g: 150, b: 110 }));
-    await page.getByRole("button", { name: "Add my measurement" }).click();
-    await page.getByText("Thank you: your measurement is added").waitFor();
-    expect(await page.locator("#measurements tbody tr").count()).toBe(seeded.measurements!.length + 1);
-    const row = page.locator("#measurements tbody tr", { hasText: "24 3/4 in" });
+    await journey.page.getByLabel("Height").fill("11 1/2");
+    await journey.page.getByLabel("Tape").check();
+    await journey.page.getByLabel("A photo (optional)").setInputFiles(await photoFile("tape-in-bay", { r: 170, g: 150, b: 110 }));
+    await journey.page.getByRole("button", { name: "Add my measurement" }).click();
+    await journey.page.getByText("Thank you: your measurement is added").waitFor();
+    expect(await journey.page.locator("#measurements tbody tr").count()).toBe(seeded.measurements!.length + 1);
+    const row = journey.page.locator("#measurements tbody tr", { hasText: "24 3/4 in" });
     expect(await row.locator("img").count()).toBe(1);
     // The consensus is the median of each dimension: with his 24 3/4 in the four lengths
     // 24 3/8, 24 1/2, 24 5/8, 24 3/4 give 24 9/16 in (median of an even count: the mean of the middle two).
     const lengths = [...seeded.measurements!.map((m) => m.lengthIn), mine.lengthIn];
     expect(medianOf(lengths)).toBe(24.5625);
-    const consensus = page.getByRole("row", { name: /Consensus \(median\)/ });
+    const consensus = journey.page.getByRole("row", { name: /Consensus \(median\)/ });
     expect(await consensus.textContent()).toContain("24 9/16 in");
-    await page.screenshot({ path: screenshotPath("journey-member-measurement"), fullPage: true });
+    await journey.page.screenshot({ path: screenshotPath("journey-member-measurement"), fullPage: true });
 
     // Stored in millimetres, exactly: 1 in = 25.4 mm (NIST Handbook 44, Appendix C).
-    const stored = await server.database.pool.query(
+    const stored = await journey.server.database.pool.query(
       `select m.length_mm, m.width_mm, m.height_mm, m.hull_number, m.method, m.photo_id from space_measurements m
        join spaces s on s.id = m.space_id join users u on u.id = m.user_id
        where s.slug = $1 and u.email = 'hal.dunmore@example.com' order by m.id desc limit 1`, [SLUG]);
@@ -111,32 +95,32 @@ describe("a member adds a measurement and writes up the job", () => {
   });
 
   it("writes up the job with a photo and sends it for review", async () => {
-    await page.getByRole("link", { name: "Your write-ups", exact: true }).click();
-    await page.getByRole("link", { name: "Write up a job" }).click();
-    await page.getByRole("heading", { level: 1, name: "A new write-up" }).waitFor();
-    await page.waitForSelector("form[novalidate]", { state: "attached" });
-    await page.getByLabel("Title").fill(TITLE);
-    await page.getByLabel("Summary").fill("A shelf with a 3/4 in fiddle fitted over the outboard part of the aft settee bay, clear of the tank fill hose.");
-    await page.getByLabel("The write-up").fill(
+    await journey.page.getByRole("link", { name: "Your write-ups", exact: true }).click();
+    await journey.page.getByRole("link", { name: "Write up a job" }).click();
+    await journey.page.getByRole("heading", { level: 1, name: "A new write-up" }).waitFor();
+    await journey.page.waitForSelector("form[novalidate]", { state: "attached" });
+    await journey.page.getByLabel("Title").fill(TITLE);
+    await journey.page.getByLabel("Summary").fill("A shelf with a 3/4 in fiddle fitted over the outboard part of the aft settee bay, clear of the tank fill hose.");
+    await journey.page.getByLabel("The write-up").fill(
       "## What I measured\n\n| part | size |\n|---|---|\n| bay, main part | 24 3/4 x 14 1/4 x 11 1/2 in |\n| shelf | 22 x 4 in |\n\n" +
       "I measured with a tape, wall to wall, and added the measurement to the space.",
     );
-    await page.getByTestId("preview").locator("table").waitFor();
-    await page.getByLabel("Joinery").check();
-    await page.getByRole("button", { name: "Add a part" }).click();
-    await page.getByLabel("Part 1 name").fill("Plywood shelf, 1/2 in");
-    await page.getByLabel("Part 1 weight").fill("3 lb");
-    await page.getByRole("button", { name: "Add a photo" }).click();
-    await page.getByLabel("Photo", { exact: true }).setInputFiles(await photoFile("shelf", { r: 120, g: 90, b: 60 }));
-    await page.getByLabel("Caption").fill("The shelf in place");
-    await page.getByLabel("What the photo shows (for readers who cannot see it)").fill("A plywood shelf with a low fiddle along the hull side");
-    await page.getByRole("button", { name: "Upload and insert" }).click();
-    await page.getByTestId("preview").locator('img[src^="/media/photos/"]').waitFor();
-    await page.screenshot({ path: screenshotPath("journey-member-editor"), fullPage: true });
-    await page.getByRole("button", { name: "Send for review" }).click();
-    await page.getByText("Sent to the moderators").waitFor();
+    await journey.page.getByTestId("preview").locator("table").waitFor();
+    await journey.page.getByLabel("Joinery").check();
+    await journey.page.getByRole("button", { name: "Add a part" }).click();
+    await journey.page.getByLabel("Part 1 name").fill("Plywood shelf, 1/2 in");
+    await journey.page.getByLabel("Part 1 weight").fill("3 lb");
+    await journey.page.getByRole("button", { name: "Add a photo" }).click();
+    await journey.page.getByLabel("Photo", { exact: true }).setInputFiles(await photoFile("shelf", { r: 120, g: 90, b: 60 }));
+    await journey.page.getByLabel("Caption").fill("The shelf in place");
+    await journey.page.getByLabel("What the photo shows (for readers who cannot see it)").fill("A plywood shelf with a low fiddle along the hull side");
+    await journey.page.getByRole("button", { name: "Upload and insert" }).click();
+    await journey.page.getByTestId("preview").locator('img[src^="/media/photos/"]').waitFor();
+    await journey.page.screenshot({ path: screenshotPath("journey-member-editor"), fullPage: true });
+    await journey.page.getByRole("button", { name: "Send for review" }).click();
+    await journey.page.getByText("Sent to the moderators").waitFor();
 
-    const r = await server.database.pool.query(
+    const r = await journey.server.database.pool.query(
       "select status, body_markdown, parts from writeup_revisions where title = $1", [TITLE]);
     expect(r.rows.length).toBe(1);
     expect(r.rows[0].status).toBe("awaiting_review");
@@ -151,14 +135,14 @@ describe("a member adds a measurement and writes up the job", () => {
   });
 
   it("finds it in his list as waiting for review", async () => {
-    await page.getByRole("link", { name: "Your write-ups", exact: true }).click();
-    const row = page.locator("main li, main tr", { hasText: TITLE }).first();
+    await journey.page.getByRole("link", { name: "Your write-ups", exact: true }).click();
+    const row = journey.page.locator("main li, main tr", { hasText: TITLE }).first();
     await row.waitFor();
     expect(await row.textContent()).toMatch(/review/i);
-    await page.screenshot({ path: screenshotPath("journey-member-list"), fullPage: true });
+    await journey.page.screenshot({ path: screenshotPath("journey-member-list"), fullPage: true });
   });
 
   it("saw no errors in the browser", () => {
-    expect(errors).toEqual([]);
+    expect(journey.errors).toEqual([]);
   });
 });
