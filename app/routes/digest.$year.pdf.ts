@@ -11,14 +11,12 @@ import { buildDigestPdf } from "~/services/digest-print.server";
 import { env } from "~/services/env.server";
 import { getObject, putObject } from "~/services/storage.server";
 import { readForm } from "~/services/form-body.server";
+import { digestYearAndEdition } from "./digest-params.server";
 
 const building = new Map<number, Promise<{ key: string; bytes: number; ms: number }>>();
 
 async function findEdition(params: { year: string }, request: Request) {
-  const year = Number(params.year);
-  const raw = new URL(request.url).searchParams.get("edition");
-  const edition = raw === null ? undefined : Number(raw);
-  if (!/^\d{4}$/.test(params.year) || (edition !== undefined && !(Number.isInteger(edition) && edition >= 1 && edition <= 1000))) throw data("No such digest.", { status: 404 });
+  const { year, edition } = digestYearAndEdition(params, request);
   const issued = await getIssued(db, year, edition);
   if (!issued) throw data("No digest has been issued for that year.", { status: 404 });
   return { year, issued };

@@ -12,16 +12,14 @@ import { can } from "~/domain/permissions";
 import { getIssued } from "~/models/digests.server";
 import { env } from "~/services/env.server";
 import { getUser, readNotice } from "~/services/session.server";
+import { digestYearAndEdition } from "./digest-params.server";
 
 export function meta({ loaderData }: Route.MetaArgs) {
   return [{ title: loaderData ? `${digestTitle(loaderData.snapshot.year, loaderData.snapshot.edition)} · ${loaderData.className} · Sistership` : "Yearly digest · Sistership" }];
 }
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const year = Number(params.year);
-  const raw = new URL(request.url).searchParams.get("edition");
-  const edition = raw === null ? undefined : Number(raw);
-  if (!/^\d{4}$/.test(params.year) || (edition !== undefined && !(Number.isInteger(edition) && edition >= 1 && edition <= 1000))) throw data("No such digest.", { status: 404 });
+  const { year, edition } = digestYearAndEdition(params, request);
   const [issued, user, { notice, headers }] = await Promise.all([getIssued(db, year, edition), getUser(request), readNotice(request)]);
   if (!issued) throw data(`No digest has been issued for ${year}.`, { status: 404 });
   return data({

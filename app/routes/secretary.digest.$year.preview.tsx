@@ -15,20 +15,15 @@ import { kickOutbox } from "~/services/outbox-worker.server";
 import { redirectWithNotice, requirePermission } from "~/services/session.server";
 import { unsubscribeUrl } from "~/services/unsubscribe.server";
 import { readForm } from "~/services/form-body.server";
+import { digestYear } from "./digest-params.server";
 
 export function meta({ loaderData }: Route.MetaArgs) {
   return [{ title: loaderData ? `Preview: ${digestTitle(loaderData.snapshot.year, loaderData.snapshot.edition)} · Sistership` : "Digest preview · Sistership" }];
 }
 
-function yearParam(params: { year: string }): number {
-  const year = Number(params.year);
-  if (!/^\d{4}$/.test(params.year)) throw data("No such year.", { status: 404 });
-  return year;
-}
-
 export async function loader({ request, params }: Route.LoaderArgs) {
   await requirePermission(request, "digest:compile");
-  const year = yearParam(params);
+  const year = digestYear(params);
   const draft = await getDraft(db, year);
   if (!draft) throw redirect("/secretary/digest");
   const [snapshot, recipients] = await Promise.all([buildSnapshot(db, draft.edition.id), digestRecipients(db)]);
@@ -44,7 +39,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 
 export async function action({ request, params }: Route.ActionArgs) {
   const user = await requirePermission(request, "digest:compile");
-  const year = yearParam(params);
+  const year = digestYear(params);
   const draft = await getDraft(db, year);
   if (!draft) throw redirect("/secretary/digest");
   const formData = await readForm(request);

@@ -9,20 +9,15 @@ import { entrySchema, letterSchema } from "~/domain/digest-forms";
 import { addNewlyPublished, changeEntry, DigestError, discardDraft, getDraft, saveLetter } from "~/models/digests.server";
 import { readNotice, redirectWithNotice, requirePermission } from "~/services/session.server";
 import { readForm } from "~/services/form-body.server";
+import { digestYear } from "./digest-params.server";
 
 export function meta({ loaderData }: Route.MetaArgs) {
   return [{ title: loaderData ? `${digestTitle(loaderData.year, loaderData.edition)}: draft · Sistership` : "Digest draft · Sistership" }];
 }
 
-function yearParam(params: { year: string }): number {
-  const year = Number(params.year);
-  if (!/^\d{4}$/.test(params.year)) throw data("No such year.", { status: 404 });
-  return year;
-}
-
 export async function loader({ request, params }: Route.LoaderArgs) {
   await requirePermission(request, "digest:compile");
-  const year = yearParam(params);
+  const year = digestYear(params);
   const draft = await getDraft(db, year);
   if (!draft) throw redirect("/secretary/digest");
   const { notice, headers } = await readNotice(request);
@@ -47,7 +42,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 
 export async function action({ request, params }: Route.ActionArgs) {
   await requirePermission(request, "digest:compile");
-  const year = yearParam(params);
+  const year = digestYear(params);
   const draft = await getDraft(db, year);
   if (!draft) throw redirect("/secretary/digest");
   const formData = await readForm(request);
