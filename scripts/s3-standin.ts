@@ -7,6 +7,7 @@ import fs from "node:fs";
 import type { AddressInfo } from "node:net";
 import { createRequire } from "node:module";
 import path from "node:path";
+import { option, runStandin } from "./lib/standin-cli";
 
 // s3rver ships no types: these are the parts of its API used here (see its README).
 type S3rverOptions = {
@@ -51,11 +52,6 @@ export async function startS3Standin(options: { port: number; dir: string; bucke
   };
 }
 
-function option(name: string): string | undefined {
-  const i = process.argv.indexOf(`--${name}`);
-  return i >= 0 ? process.argv[i + 1] : undefined;
-}
-
 function endpointPort(): string | undefined {
   try {
     return process.env.S3_ENDPOINT ? new URL(process.env.S3_ENDPOINT).port || undefined : undefined;
@@ -68,32 +64,13 @@ async function main() {
   const port = Number(option("port") ?? endpointPort() ?? DEFAULT_STANDIN_PORT);
   const dir = path.resolve(option("dir") ?? process.env.S3_STANDIN_DIR ?? ".data/s3");
   const bucket = option("bucket") ?? process.env.S3_BUCKET ?? "sistership-photos";
-  if (!Number.isInteger(port) || port < 0 || port > 65535) {
-    console.error(`[sistership] photo store stand-in: ${port} is not a port number`);
-    process.exit(1);
-  }
-  try {
-    const standin = await startS3Standin({ port, dir, bucket });
-    console.log(`[sistership] photo store stand-in: S3 on ${standin.endpoint}, bucket ${bucket}, keeping the objects in ${dir}`);
-    let stopping = false;
-    const stop = () => {
-      if (stopping) return;
-      stopping = true;
-      // Requests still open get a short grace, then the process ends regardless.
-      setTimeout(() => process.exit(0), 3_000).unref();
-      void standin.close().then(() => process.exit(0));
-    };
-    process.on("SIGTERM", stop);
-    process.on("SIGINT", stop);
-  } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    console.error(
-      code === "EADDRINUSE"
-        ? `[sistership] photo store stand-in: port ${port} on 127.0.0.1 is busy. Stop what uses it, or choose another: S3_ENDPOINT=http://127.0.0.1:${port + 1}`
-        : `[sistership] photo store stand-in could not start: ${(error as Error).message}`,
-    );
-    process.exit(1);
-  }
+  await runStandin({
+    label: "photo store stand-in",
+    port,
+    start: () => startS3Standin({ port, dir, bucket }),
+    started: (standin) => `S3 on ${standin.endpoint}, bucket ${bucket}, keeping the objects in ${dir}`,
+    busyHint: (p) => `S3_ENDPOINT=http://127.0.0.1:${p + 1}`,
+  });
 }
 
 // Run as a program, not when a test imports startS3Standin().
