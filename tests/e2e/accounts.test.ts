@@ -82,7 +82,7 @@ describe("a new owner makes an account", () => {
     await page.getByRole("button", { name: "Show" }).click();
     await page.waitForURL("**/admin/users?**role=secretary**");
     const rows = page.locator("tbody tr");
-    expect(await rows.count()).toBeGreaterThan(0);
+    await expect.poll(() => rows.count()).toBeGreaterThan(0);
     await page.getByLabel("Name or e-mail").fill("");
     await page.getByLabel("Role", { exact: true }).selectOption("");
     await page.getByRole("button", { name: "Show" }).click();

@@ -116,19 +116,22 @@ describe("a new owner looking for room for a group 31 battery", () => {
   it("sees the register of spaces by zone, filtered by hull", async () => {
     await page.goto(BASE_URL);
     await page.getByRole("link", { name: "Spaces", exact: true }).click();
+    // The address changes before the new page has rendered: wait for what the owner reads, not for the URL.
     await page.waitForURL("**/spaces");
+    await page.getByRole("heading", { level: 1, name: "Hidden spaces" }).waitFor();
     const seed = readSeedSpaces();
+    await expect.poll(() => page.locator("main section li > a").allTextContents().then((n) => n.length)).toBe(seed.length);
     expect(await page.locator("main li a").filter({ hasText: seed[0].name }).count()).toBe(1);
     await page.getByLabel("Your hull number").fill("61");
     await page.getByRole("button", { name: "Show" }).click();
     await page.waitForURL(/hull=61/);
-    const names = await page.locator("main section li > a").allTextContents();
     const onHull61 = seed.filter((s) => {
       const [from, to] = hullRangeOf(s.appliesTo);
       return from <= 61 && 61 <= to;
     });
     expect(onHull61.length).toBeLessThan(seed.length);
-    expect(names.sort()).toEqual(onHull61.map((s) => s.name).sort());
+    await expect.poll(async () => (await page.locator("main section li > a").allTextContents()).sort())
+      .toEqual(onHull61.map((s) => s.name).sort());
   });
 
   it("logged no errors in the browser", () => {
