@@ -12,9 +12,10 @@ import { can } from "./domain/permissions";
 import { databaseOutage } from "./services/db-outage.server";
 import { refuseUnreadableAddress } from "./services/form-body.server";
 import { originCheck } from "./services/origin-check.server";
+import { forgetPagesAfterWrites } from "./services/page-cache.server";
 import { getUser } from "./services/session.server";
 
-export const middleware: Route.MiddlewareFunction[] = [originCheck, refuseUnreadableAddress, databaseOutage];
+export const middleware: Route.MiddlewareFunction[] = [originCheck, refuseUnreadableAddress, databaseOutage, forgetPagesAfterWrites];
 
 export async function loader({ request }: Route.LoaderArgs) {
   const url = new URL(request.url);

@@ -6,7 +6,9 @@
 //     of 1000 bytes. Target: at most 120 kB each.
 //   - a write-up page's throughput for one server process with autocannon: requests per second
 //     and p99 latency at --connections (default 10) for --seconds (default 20), after a warm-up.
-//     Targets: at least 500 requests per second, p99 at most 50 ms.
+//     Targets: at least 500 requests per second, p99 at most 50 ms. Read by visitors who are not
+//     signed in (kept in memory after the first, docs/decisions/0014-page-cache-for-visitors.md),
+//     and, without a target, by a signed-in member, for whom every page is made afresh.
 //
 //   npx tsx scripts/bench-pages.ts [--connections=10] [--seconds=20]
 //
@@ -17,6 +19,7 @@ import autocannon from "autocannon";
 import pg from "pg";
 import { argNumber, figure } from "./lib/bench-kit";
 import { ensureBenchBuild, startBenchApp } from "./lib/bench-app";
+import { DEMO_PASSWORD } from "./seed-content";
 
 const CONNECTIONS = argNumber("connections", 10);
 const SECONDS = argNumber("seconds", 20);
@@ -67,10 +70,23 @@ async function firstLoadKb(baseUrl: string, pathname: string): Promise<{ kb: num
   return { kb: bytes / KB, files: scripts.length };
 }
 
-function load(url: string, seconds: number, connections: number): Promise<autocannon.Result> {
+function load(url: string, seconds: number, connections: number, headers: Record<string, string> = {}): Promise<autocannon.Result> {
   return new Promise((resolve, reject) => {
-    autocannon({ url, connections, duration: seconds, timeout: 10 }, (error, result) => (error ? reject(error) : resolve(result)));
+    autocannon({ url, connections, duration: seconds, timeout: 10, headers }, (error, result) => (error ? reject(error) : resolve(result)));
   });
+}
+
+/** The session cookie of a demo member, signed in through the sign-in form. */
+async function signIn(baseUrl: string, email: string): Promise<string> {
+  const res = await fetch(`${baseUrl}/sign-in`, {
+    method: "POST",
+    redirect: "manual",
+    headers: { Origin: baseUrl, "Content-Type": "application/x-www-form-urlencoded" },
+    body: new URLSearchParams({ email, password: DEMO_PASSWORD, redirectTo: "/" }),
+  });
+  const cookie = res.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+  if (res.status !== 302 || !cookie) throw new Error(`signing in as ${email} answered ${res.status}`);
+  return cookie;
 }
 
 const buildDir = ensureBenchBuild();
@@ -91,7 +107,7 @@ try {
   figure("pages: first-load JS, home page", home.kb, "kB gzip", { op: "<=", value: 120 });
   figure("pages: first-load JS, write-up page", page.kb, "kB gzip", { op: "<=", value: 120 });
 
-  console.log(`Write-up page ${writeup}: warm-up 3 s, then ${SECONDS} s at ${CONNECTIONS} connections ...`);
+  console.log(`Write-up page ${writeup}, read by visitors: warm-up 3 s, then ${SECONDS} s at ${CONNECTIONS} connections ...`);
   await load(`${app.baseUrl}${writeup}`, 3, CONNECTIONS);
   const r = await load(`${app.baseUrl}${writeup}`, SECONDS, CONNECTIONS);
   console.log(`  ${r.requests.total} requests, ${r.non2xx} non-2xx, ${r.errors} errors, ${r.timeouts} timeouts`);
@@ -99,6 +115,15 @@ try {
   figure(`pages: write-up page, one process, ${CONNECTIONS} connections: p50 latency`, r.latency.p50, "ms");
   figure(`pages: write-up page, one process, ${CONNECTIONS} connections: p99 latency`, r.latency.p99, "ms", { op: "<=", value: 50 });
   figure("pages: write-up page: errors and non-2xx answers", r.errors + r.timeouts + r.non2xx, "count", { op: "<=", value: 0 });
+
+  const cookie = await signIn(app.baseUrl, "hal.dunmore@example.com");
+  console.log(`Write-up page ${writeup}, read by a signed-in member (made every time): ${SECONDS} s at ${CONNECTIONS} connections ...`);
+  await load(`${app.baseUrl}${writeup}`, 3, CONNECTIONS, { cookie });
+  const m = await load(`${app.baseUrl}${writeup}`, SECONDS, CONNECTIONS, { cookie });
+  console.log(`  ${m.requests.total} requests, ${m.non2xx} non-2xx, ${m.errors} errors, ${m.timeouts} timeouts`);
+  figure(`pages: write-up page for a signed-in member, one process, ${CONNECTIONS} connections: requests per second`, m.requests.average, "req/s");
+  figure(`pages: write-up page for a signed-in member, one process, ${CONNECTIONS} connections: p99 latency`, m.latency.p99, "ms");
+  figure("pages: write-up page for a signed-in member: errors and non-2xx answers", m.errors + m.timeouts + m.non2xx, "count", { op: "<=", value: 0 });
 } finally {
   await app.stop();
 }

@@ -22,6 +22,10 @@ app.use(express.static(path.join(buildDir, "client"), { maxAge: "1h" }));
 app.use((req, _res, next) => {
   // The only client address the app trusts is the one this server saw.
   req.headers["x-sistership-client"] = req.socket.remoteAddress ?? "unknown";
+  // Whether React Router answers with a page or with the data of a client-side navigation: the app
+  // cannot tell once it has normalised the address, and only pages are kept for visitors
+  // (app/services/page-cache.server.ts).
+  req.headers["x-sistership-document"] = req.path.endsWith(".data") ? "no" : "yes";
   next();
 });
 app.all("*", createRequestHandler({ build, mode: "production" }));

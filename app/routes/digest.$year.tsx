@@ -13,10 +13,14 @@ import { getIssued } from "~/models/digests.server";
 import { env } from "~/services/env.server";
 import { getUser, readNotice } from "~/services/session.server";
 import { digestYearAndEdition } from "./digest-params.server";
+import { keepPageForVisitors } from "~/services/page-cache.server";
 
 export function meta({ loaderData }: Route.MetaArgs) {
   return [{ title: loaderData ? `${digestTitle(loaderData.snapshot.year, loaderData.snapshot.edition)} · ${loaderData.className} · Sistership` : "Yearly digest · Sistership" }];
 }
+
+// Visitors who are not signed in may be answered from memory (app/services/page-cache.server.ts).
+export const middleware: Route.MiddlewareFunction[] = [keepPageForVisitors];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { year, edition } = digestYearAndEdition(params, request);

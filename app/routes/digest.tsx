@@ -6,10 +6,14 @@ import { CLASS_NAME } from "~/domain/hulls";
 import { can } from "~/domain/permissions";
 import { listIssued } from "~/models/digests.server";
 import { getUser } from "~/services/session.server";
+import { keepPageForVisitors } from "~/services/page-cache.server";
 
 export function meta() {
   return [{ title: `The yearly digest · ${CLASS_NAME} · Sistership` }];
 }
+
+// Visitors who are not signed in may be answered from memory (app/services/page-cache.server.ts).
+export const middleware: Route.MiddlewareFunction[] = [keepPageForVisitors];
 
 export async function loader({ request }: Route.LoaderArgs) {
   const [issued, user] = await Promise.all([listIssued(db), getUser(request)]);

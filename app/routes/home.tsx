@@ -4,6 +4,7 @@ import { WriteupCard } from "~/components/writeup-card";
 import { db } from "~/db/index.server";
 import { CLASS_NAME } from "~/domain/hulls";
 import { listRecentPublished, listSystemsWithCounts } from "~/models/writeups.server";
+import { keepPageForVisitors } from "~/services/page-cache.server";
 
 export function meta() {
   return [
@@ -11,6 +12,9 @@ export function meta() {
     { name: "description", content: `Modifications, measured spaces and known fixes from ${CLASS_NAME} owners.` },
   ];
 }
+
+// Visitors who are not signed in may be answered from memory (app/services/page-cache.server.ts).
+export const middleware: Route.MiddlewareFunction[] = [keepPageForVisitors];
 
 export async function loader() {
   const [recent, systems] = await Promise.all([listRecentPublished(db, 6), listSystemsWithCounts(db)]);

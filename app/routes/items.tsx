@@ -14,6 +14,7 @@ import { addItem, listItems } from "~/models/items.server";
 import { getUser, readNotice, redirectWithNotice, requirePermission } from "~/services/session.server";
 import { readerUnit } from "./reader-unit.server";
 import { readForm } from "~/services/form-body.server";
+import { keepPageForVisitors } from "~/services/page-cache.server";
 
 export function meta() {
   return [
@@ -21,6 +22,9 @@ export function meta() {
     { name: "description", content: "Battery cases by BCI group and the tanks, coolers and boxes members have measured." },
   ];
 }
+
+// Visitors who are not signed in may be answered from memory (app/services/page-cache.server.ts).
+export const middleware: Route.MiddlewareFunction[] = [keepPageForVisitors];
 
 export async function loader({ request }: Route.LoaderArgs) {
   const user = await getUser(request);

@@ -1,5 +1,10 @@
 import { Link } from "react-router";
+import type { Route } from "./+types/safety";
 import { CAUTIONS } from "~/domain/cautions";
+import { keepPageForVisitors } from "~/services/page-cache.server";
+
+// Visitors who are not signed in may be answered from memory (app/services/page-cache.server.ts).
+export const middleware: Route.MiddlewareFunction[] = [keepPageForVisitors];
 
 export function meta() {
   return [{ title: "Safety and the limits of this advice · Sistership" }];

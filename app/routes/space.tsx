@@ -21,6 +21,7 @@ import { addMeasurement, asFitSpace, deleteMeasurement, getMeasurement, getSpace
 import { mediaUrl, parsePhotoUpload, PhotoRejectedError, storeUploadedPhoto, thumbnailKey } from "~/services/photos.server";
 import { getUser, readNotice, redirectWithNotice, requireUser } from "~/services/session.server";
 import { readerUnit } from "./reader-unit.server";
+import { keepPageForVisitors } from "~/services/page-cache.server";
 
 const AXES = ["length", "width", "height"] as const;
 const AXIS_HEADINGS = { length: "Length", width: "Width", height: "Height" } as const;
@@ -28,6 +29,9 @@ const AXIS_HEADINGS = { length: "Length", width: "Width", height: "Height" } as 
 function today() {
   return new Date().toISOString().slice(0, 10);
 }
+
+// Visitors who are not signed in may be answered from memory (app/services/page-cache.server.ts).
+export const middleware: Route.MiddlewareFunction[] = [keepPageForVisitors];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await getUser(request);

@@ -8,6 +8,7 @@ import { CLASS_NAME, describeHullRange, FIRST_HULL, LAST_HULL, VARIANTS, variant
 import { formatLength } from "~/domain/units";
 import { listSpaces } from "~/models/spaces.server";
 import { readerUnit } from "./reader-unit.server";
+import { keepPageForVisitors } from "~/services/page-cache.server";
 
 export function meta() {
   return [
@@ -15,6 +16,9 @@ export function meta() {
     { name: "description", content: `The measured spaces under berths, in lockers and under the cockpit of the ${CLASS_NAME}.` },
   ];
 }
+
+// Visitors who are not signed in may be answered from memory (app/services/page-cache.server.ts).
+export const middleware: Route.MiddlewareFunction[] = [keepPageForVisitors];
 
 export async function loader({ request }: Route.LoaderArgs) {
   const url = new URL(request.url);

@@ -3,6 +3,10 @@ import type { Route } from "./+types/system";
 import { WriteupCard } from "~/components/writeup-card";
 import { db } from "~/db/index.server";
 import { getSystem, listPublishedBySystem } from "~/models/writeups.server";
+import { keepPageForVisitors } from "~/services/page-cache.server";
+
+// Visitors who are not signed in may be answered from memory (app/services/page-cache.server.ts).
+export const middleware: Route.MiddlewareFunction[] = [keepPageForVisitors];
 
 export async function loader({ params }: Route.LoaderArgs) {
   const system = await getSystem(db, params.slug);

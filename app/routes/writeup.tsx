@@ -15,6 +15,10 @@ import { loadConversation } from "./conversation.server";
 import { WriteupCalculations } from "~/components/writeup-calculations";
 import { listPublishedCalculations } from "~/models/calculations.server";
 import { readerUnit } from "./reader-unit.server";
+import { keepPageForVisitors } from "~/services/page-cache.server";
+
+// Visitors who are not signed in may be answered from memory (app/services/page-cache.server.ts).
+export const middleware: Route.MiddlewareFunction[] = [keepPageForVisitors];
 
 export async function loader({ params, request }: Route.LoaderArgs) {
   const writeup = await getPublishedWriteup(db, params.slug);
