@@ -348,6 +348,32 @@ describe("a search that matches more than it reads (docs/decisions/0008)", () =>
     await t.db.execute(sql`delete from writeups where slug like 'gunwale-%' or slug = 'quillwort-title'`);
   });
 
+  it("reads its matches through the index when the table's first rows hold too few of them, with the same answer", async () => {
+    const author = await authorId();
+    // The first rows a search tries hold none of the matches (app/models/search.server.ts, PROBE_ROWS).
+    await t.db.execute(sql`
+      insert into writeups (slug, title, summary, body_text, status, author_id, published_at)
+      select 'filler-' || g, 'Other job ' || g, 'A job.', 'The hatch seal was replaced.', 'published', ${author}, '2024-01-01'
+        from generate_series(1, 1200) g`);
+    await t.db.execute(sql`
+      insert into writeups (slug, title, summary, body_text, status, author_id, published_at)
+      select 'sedgewick-' || g, 'Job ' || g, 'A job.', 'The sedgewick fitting was replaced.', 'published', ${author}, '2024-01-01'
+        from generate_series(1, ${MATCH_CAP + 19}) g`);
+    await t.db.execute(sql`
+      insert into writeups (slug, title, summary, body_text, status, author_id, published_at)
+      values ('sedgewick-title', 'Sedgewick fitting renewed', 'A job.', 'The sedgewick fitting was replaced.', 'published', ${author}, '2024-01-01')`);
+    const { body } = await api("q=sedgewick&limit=5");
+    expect(body).toMatchObject({ total: MATCH_CAP, totalCapped: true });
+    expect(body.results[0].url).toBe("/writeups/sedgewick-title");
+    // A word of every filler row: the first rows hold enough of its matches.
+    const broad = (await api("q=hatch%20seal&limit=5")).body;
+    expect(broad).toMatchObject({ total: MATCH_CAP, totalCapped: true });
+    expect(broad.results).toHaveLength(5);
+    // Below the cap, every match is counted, wherever it lies.
+    expect((await api("q=sedgewick%20renewed")).body).toMatchObject({ total: 1, totalCapped: false });
+    await t.db.execute(sql`delete from writeups where slug like 'filler-%' or slug like 'sedgewick-%'`);
+  });
+
   it("makes the snippet of a long write-up from around the first word found, far into its body", async () => {
     const author = await authorId();
     const filler = "The hull was sanded, faired and painted again before launch. ".repeat(60);
