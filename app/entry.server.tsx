@@ -42,6 +42,11 @@ export default function handleRequest(
       </NonceContext.Provider>,
       {
         nonce,
+        // A Suspense boundary's content goes into the HTML where it stands, however long the page:
+        // React would otherwise send a large one after the rest, hidden until a script of its own
+        // moves it in place, and a reader without JavaScript would see only its fallback
+        // (components/deferred.tsx renders parts of pages inside such boundaries).
+        progressiveChunkSize: Number.POSITIVE_INFINITY,
         [readyOption]() {
           shellRendered = true;
           const body = new PassThrough({

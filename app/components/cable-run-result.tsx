@@ -1,6 +1,7 @@
 // A DC cable run sized by voltage drop and by ampacity, with the overcurrent limit and the
 // cautions. Used on /tools/cable and on a write-up that carries a cable-run calculation.
-import { computeCableRun, type CableRunStored } from "~/domain/calculations";
+import { computeCableRun } from "~/domain/calculation-results";
+import type { CableRunStored } from "~/domain/calculations";
 import { DROP_CATEGORIES, NEC_CH9_TABLE8, type Awg, type InsulationRatingC } from "~/domain/conductors";
 import { K_COPPER, tableAmpacity } from "~/domain/cable";
 import { MM_PER_FOOT, type LengthUnit } from "~/domain/units";

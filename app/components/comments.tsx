@@ -1,13 +1,15 @@
 // Comments under a published write-up: plain text (no Markdown), shown with its line breaks and
 // escaped by React like any other text. Posted and removed through /api/writeups/:slug/comments
 // with a fetcher; the same forms work as plain HTML forms before the page's script has loaded.
-import { getFormProps, getTextareaProps, type SubmissionResult, useForm } from "@conform-to/react";
-import { parseWithZod } from "@conform-to/zod/v4";
-import { useEffect, useMemo, useState } from "react";
+//
+// No zod and no conform in the browser: the page checks a comment's length with commentProblem()
+// (app/domain/comment-rules.ts) and shows the server's answer beside the field; the server checks
+// it again with the zod schema (docs/decisions/0013-write-up-page-script-within-budget.md).
+import { useEffect, useRef, useState } from "react";
 import { Link, useFetcher } from "react-router";
-import { buttonClass, FieldError, FormMessage, Honeypot, inputClass, quietButtonClass } from "~/components/ui/field";
+import { buttonClass, FieldError, FormMessage, Honeypot, inputClass, quietButtonClass } from "~/components/ui/form-basics";
 import { formatDate } from "~/components/writeup-card";
-import { COMMENT_MAX, COMMENT_MIN, commentSchema } from "~/domain/conversation-forms";
+import { COMMENT_MAX, COMMENT_MIN, commentProblem } from "~/domain/comment-rules";
 
 export type CommentView = { id: number; authorName: string; body: string; createdAt: Date; mine: boolean; canDelete: boolean };
 /** A comment refused on a page without JavaScript, back in the form with its message. */
@@ -19,7 +21,8 @@ export type CommentReply = {
   error?: string;
   parameter?: string;
   message?: string;
-  result?: SubmissionResult<string[]>;
+  /** The server's check of the fields (conform's submission reply); the page shows `message`. */
+  result?: unknown;
 };
 
 const apiPath = (slug: string) => `/api/writeups/${encodeURIComponent(slug)}/comments`;
@@ -79,60 +82,91 @@ function CommentItem({ slug, comment }: { slug: string; comment: CommentView }) 
   );
 }
 
+const FORM_ID = "comment-form";
+const BODY_ID = `${FORM_ID}-body`;
+
 function CommentForm({ slug, draft }: { slug: string; draft: CommentDraft | null }) {
   const fetcher = useFetcher<CommentReply>();
+  const box = useRef<HTMLTextAreaElement>(null);
   const reply = fetcher.state === "idle" ? fetcher.data : undefined;
-  // The same object while the page's data stays the same (conform reports each new result once).
-  const draftResult = useMemo<SubmissionResult<string[]> | undefined>(
-    () => (draft ? { status: "error", initialValue: { body: draft.body }, error: { body: [draft.error] } } : undefined),
-    [draft],
-  );
-  const [form, fields] = useForm({
-    id: "comment-form",
-    lastResult: fetcher.data?.result ?? draftResult,
-    defaultValue: draft ? { body: draft.body } : undefined,
-    defaultNoValidate: false,
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: commentSchema }),
-    shouldValidate: "onSubmit",
-    shouldRevalidate: "onInput",
-  });
+  // The message beside the field: this page's own check, or the server's answer (or, on a page
+  // without JavaScript, the refused draft's). Once one is shown it is checked again as the text changes.
+  const [error, setError] = useState<string | null>(draft?.error ?? null);
+  const [recheck, setRecheck] = useState(draft !== null);
+  // The browser's own checks (required, minlength, maxlength) guard the form until this script
+  // runs; from then on the messages below take over, in the same words as the server's.
+  const [hydrated, setHydrated] = useState(false);
   const [length, setLength] = useState(draft?.body.length ?? 0);
-  const posted = reply?.ok === true;
   useEffect(() => {
-    if (posted) setLength(0);
-  }, [posted, reply]);
+    setHydrated(true);
+    // Text typed before this script came (the form was a plain one until then) is counted too.
+    if (box.current) setLength(box.current.value.length);
+  }, []);
+  useEffect(() => {
+    const answer = fetcher.data;
+    if (!answer) return;
+    if (answer.ok) {
+      if (box.current) box.current.value = "";
+      setLength(0);
+      setError(null);
+      setRecheck(false);
+    } else if (answer.parameter === "body" && answer.message) {
+      setError(answer.message);
+      setRecheck(true);
+    }
+  }, [fetcher.data]);
+  const posted = reply?.ok === true;
   const busy = fetcher.state !== "idle";
   // A refusal that belongs to no field (the honeypot, a write-up that went away, a lost session).
   const formError = reply && !reply.ok && reply.parameter !== "body" ? reply.message : undefined;
-  const hintId = `${fields.body.id}-hint`;
+  const hintId = `${BODY_ID}-hint`;
+  const errorId = `${BODY_ID}-error`;
   return (
     <fetcher.Form
       method="post"
       action={apiPath(slug)}
-      {...getFormProps(form)}
+      id={FORM_ID}
+      noValidate={hydrated || undefined}
+      onSubmit={(e) => {
+        const problem = commentProblem(box.current?.value ?? "");
+        setRecheck(true);
+        setError(problem);
+        if (problem) {
+          e.preventDefault();
+          box.current?.focus();
+        }
+      }}
       className="relative mt-6 scroll-mt-6 space-y-3 rounded-lg bg-cloth-100 p-4"
       aria-label="Add a comment"
     >
       <input type="hidden" name="intent" value="post" />
       <div>
-        <label htmlFor={fields.body.id} className="block font-medium">Your comment</label>
+        <label htmlFor={BODY_ID} className="block font-medium">Your comment</label>
         <p id={hintId} className="text-step--1 text-ink-soft">
           Plain text: line breaks are kept, Markdown is not. {COMMENT_MIN} to {COMMENT_MAX.toLocaleString("en-US")} characters.
         </p>
         <textarea
-          {...getTextareaProps(fields.body, { ariaDescribedBy: hintId })}
-          key={fields.body.key}
+          ref={box}
+          id={BODY_ID}
+          name="body"
+          defaultValue={draft?.body}
           required
           minLength={COMMENT_MIN}
           maxLength={COMMENT_MAX}
           rows={5}
-          onInput={(e) => setLength(e.currentTarget.value.length)}
+          aria-invalid={error ? true : undefined}
+          aria-describedby={error ? `${errorId} ${hintId}` : hintId}
+          onInput={(e) => {
+            const text = e.currentTarget.value;
+            setLength(text.length);
+            if (recheck) setError(commentProblem(text));
+          }}
           className={`mt-1 font-serif ${inputClass}`}
         />
         {length > COMMENT_MAX - 500 && (
           <p className="text-step--1 text-ink-soft" aria-live="polite">{(COMMENT_MAX - length).toLocaleString("en-US")} characters left.</p>
         )}
-        <FieldError id={fields.body.errorId} errors={fields.body.errors} />
+        <FieldError id={errorId} errors={error ? [error] : undefined} />
       </div>
       <Honeypot />
       <FormMessage errors={formError ? [formError] : undefined} />

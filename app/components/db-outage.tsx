@@ -2,7 +2,7 @@
 // what happened, what to do, and everything a posted form held, ready to send again.
 import { Link } from "react-router";
 import { DATABASE_OUTAGE, type DatabaseOutage } from "~/domain/db-outage";
-import { buttonClass, inputClass } from "./ui/field";
+import { buttonClass, inputClass } from "./ui/form-basics";
 
 const HIDDEN = new Set(["intent", "redirectTo", "website"]);
 

@@ -2,7 +2,7 @@
 // one of their registered hulls (or take it back). Sent to /api/writeups/:slug/done-too with a
 // fetcher; the same forms work as plain HTML forms before the page's script has loaded.
 import { Link, useFetcher } from "react-router";
-import { buttonClass, FieldError, inputClass, quietButtonClass } from "~/components/ui/field";
+import { buttonClass, FieldError, inputClass, quietButtonClass } from "~/components/ui/form-basics";
 
 export type DoneTooView = {
   count: number;

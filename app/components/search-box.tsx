@@ -38,10 +38,17 @@ export function SearchBox({
   const [active, setActive] = useState(-1);
   const [hydrated, setHydrated] = useState(false);
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
+  const field = useRef<HTMLInputElement>(null);
   const listId = `${id}-suggestions`;
   const statusId = useId();
 
-  useEffect(() => setHydrated(true), []);
+  useEffect(() => {
+    setHydrated(true);
+    // Words typed while the field was still the page's plain one (before this script came, which
+    // in the site's header is after the page's first script) stay in it.
+    const typed = field.current?.value;
+    if (typed !== undefined) setValue(typed);
+  }, []);
   useEffect(() => () => { if (timer.current) clearTimeout(timer.current); }, []);
 
   // Suggestions for what is in the field now (an answer to older typing is not shown).
@@ -100,6 +107,7 @@ export function SearchBox({
     <div className="relative min-w-0 flex-1">
       <label htmlFor={id} className={labelClassName}>{label}</label>
       <input
+        ref={field}
         id={id}
         name="q"
         type="text"

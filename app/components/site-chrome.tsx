@@ -1,5 +1,21 @@
 import { Form, Link } from "react-router";
-import { SearchBox } from "./search-box";
+import { deferred } from "./deferred";
+import type { SearchBox as TypeAhead } from "./search-box";
+
+type SearchBoxProps = Parameters<typeof TypeAhead>[0];
+
+// The search field is in every page's HTML; its type-ahead's code comes after the page's first
+// script (./deferred.tsx): until then it is a plain search field that sends its words to /search.
+const SearchBox = deferred(
+  () => import("./search-box").then((m) => m.SearchBox),
+  ({ id, label, defaultValue, placeholder, inputClassName, labelClassName = "sr-only" }: SearchBoxProps) => (
+    <div className="relative min-w-0 flex-1">
+      <label htmlFor={id} className={labelClassName}>{label}</label>
+      <input id={id} name="q" type="text" inputMode="search" autoComplete="off" spellCheck={false} maxLength={200}
+        defaultValue={defaultValue} placeholder={placeholder} className={inputClassName} />
+    </div>
+  ),
+);
 
 export type HeaderUser = { displayName: string; isAdmin: boolean; canReview: boolean } | null;
 

@@ -3,7 +3,8 @@
 // write-up that carries a weight-move calculation (app/domain/calculations.ts).
 import type { ReactNode } from "react";
 import { PlanDrawing, SectionDrawing, WeightKey } from "~/components/boat-drawings";
-import { computeWeightMove, type WeightMoveInput } from "~/domain/calculations";
+import { computeWeightMove } from "~/domain/calculation-results";
+import type { WeightMoveInput } from "~/domain/calculations";
 import {
   describeDraftChange,
   describeHeel,

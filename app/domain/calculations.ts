@@ -5,11 +5,7 @@
  * the same code as the boat page and the tools, so a reader sees what the author saw.
  */
 import { z } from "zod";
-import { sizeCableRun, type CableRunFailure, type CableRunResult } from "./cable";
 import { INSULATION_RATINGS_C } from "./conductors";
-import { boatWhatIf, type ClassFigures, type LedgerEntry, type Position } from "./ledger";
-import type { WhatIfResult } from "./stability";
-import { MM_PER_FOOT } from "./units";
 
 const positive = z.number().positive().finite();
 const finite = z.number().finite();
@@ -91,42 +87,6 @@ export function readCalculation(kind: string, input: unknown): Calculation | nul
   return null;
 }
 
-export interface WeightMoveComputed extends WhatIfResult {
-  item: LedgerEntry;
-  from: Position;
-  to: Position;
-  /** Distance moved across, mm, + to starboard; and fore and aft, + aft. */
-  acrossMm: number;
-  foreAftMm: number;
-}
-
-export function computeWeightMove(input: WeightMoveInput): WeightMoveComputed {
-  const particulars = input.particulars as ClassFigures;
-  const items = input.items as LedgerEntry[];
-  const item = items.find((i) => i.id === input.moved) as LedgerEntry;
-  const to: Position = { aftOfBowMm: input.to.aftOfBowMm, offCentreMm: input.to.offCentreMm, heightMm: input.to.heightMm ?? item.heightMm };
-  const result = boatWhatIf(particulars, items, input.moved, to, input.gmMm);
-  return {
-    ...result,
-    item,
-    from: { aftOfBowMm: item.aftOfBowMm, offCentreMm: item.offCentreMm, heightMm: item.heightMm },
-    to,
-    acrossMm: to.offCentreMm - item.offCentreMm,
-    foreAftMm: to.aftOfBowMm - item.aftOfBowMm,
-  };
-}
-
-export function toCableRunInput(input: CableRunStored) {
-  return {
-    currentA: input.currentA,
-    oneWayLengthFt: input.oneWayLengthMm / MM_PER_FOOT,
-    systemVoltage: input.systemVoltage,
-    allowedDropPct: input.allowedDropPct,
-    insulationRatingC: input.insulationRatingC as 60 | 75 | 90 | 105,
-    inEngineSpace: input.inEngineSpace,
-  };
-}
-
-export function computeCableRun(input: CableRunStored): CableRunResult | CableRunFailure {
-  return sizeCableRun(toCableRunInput(input));
-}
+// Working the numbers out needs no zod: it lives in calculation-results.ts, which the write-up
+// page's script loads without the schemas above.
+export { computeCableRun, computeWeightMove, toCableRunInput, type WeightMoveComputed } from "./calculation-results";

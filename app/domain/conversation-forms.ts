@@ -1,22 +1,21 @@
 // The zod schemas of the conversation under a write-up (comments, "done on my boat too") and of the
-// admins' form for boat systems: one per form, used in the browser (conform) and on the server.
+// admins' form for boat systems: one per form. The comment and done-too schemas are the server's
+// check only: the write-up page keeps zod out of its script
+// (docs/decisions/0013-write-up-page-script-within-budget.md). The systems schema is used in the
+// browser (conform) and on the server.
 import { z } from "zod";
 import { hullNumberField } from "./account-forms";
+import { COMMENT_MAX, COMMENT_MESSAGES, COMMENT_MIN, commentText } from "./comment-rules";
 
-export const COMMENT_MIN = 2;
-export const COMMENT_MAX = 4000;
-
-/** Line breaks as one character each (a browser sends CRLF; its maxlength counts one). */
-export function normaliseLineBreaks(text: string): string {
-  return text.replace(/\r\n?/g, "\n");
-}
+// The limits and messages live in comment-rules.ts (no zod), which the write-up page's script uses.
+export { COMMENT_MAX, COMMENT_MIN, normaliseLineBreaks } from "./comment-rules";
 
 const commentBody = z.preprocess(
-  (v) => (typeof v === "string" ? normaliseLineBreaks(v).trim() : v),
+  (v) => (typeof v === "string" ? commentText(v) : v),
   z
-    .string({ error: "Write your comment first." })
-    .min(COMMENT_MIN, { message: `Write at least ${COMMENT_MIN} characters.` })
-    .max(COMMENT_MAX, { message: `Keep it to ${COMMENT_MAX} characters; split a longer account into a write-up of its own.` }),
+    .string({ error: COMMENT_MESSAGES.missing })
+    .min(COMMENT_MIN, { message: COMMENT_MESSAGES.tooShort })
+    .max(COMMENT_MAX, { message: COMMENT_MESSAGES.tooLong }),
 );
 
 export const commentSchema = z.object({

@@ -1,9 +1,8 @@
 import { data, Link } from "react-router";
 import type { Route } from "./+types/writeup";
 import { CautionList } from "~/components/cautions";
-import { Comments } from "~/components/comments";
-import { DoneToo } from "~/components/done-too";
-import { Notice } from "~/components/ui/field";
+import { deferred } from "~/components/deferred";
+import { Notice } from "~/components/ui/form-basics";
 import { formatDate, SystemChips } from "~/components/writeup-card";
 import { db } from "~/db/index.server";
 import { cautionsFor } from "~/domain/cautions";
@@ -12,7 +11,6 @@ import { renderMarkdownCached } from "~/services/rendered-markdown.server";
 import { formatLength, formatWeight } from "~/domain/units";
 import { getPublishedWriteup } from "~/models/writeups.server";
 import { loadConversation } from "./conversation.server";
-import { WriteupCalculations } from "~/components/writeup-calculations";
 import { listPublishedCalculations } from "~/models/calculations.server";
 import { readerUnit } from "./reader-unit.server";
 import { keepPageForVisitors } from "~/services/page-cache.server";
@@ -20,7 +18,19 @@ import { keepPageForVisitors } from "~/services/page-cache.server";
 // Visitors who are not signed in may be answered from memory (app/services/page-cache.server.ts).
 export const middleware: Route.MiddlewareFunction[] = [keepPageForVisitors];
 
+// The numbers and the conversation come in the page's HTML; the browser fetches their code after the
+// page's first script (components/deferred.tsx, docs/decisions/0013-write-up-page-script-within-budget.md).
+const WriteupCalculations = deferred(
+  () => import("~/components/writeup-calculations").then((m) => m.WriteupCalculations),
+  <p className="mt-10 text-step--1 text-ink-soft">Working out the numbers…</p>,
+);
+const WriteupConversation = deferred(
+  () => import("~/components/writeup-conversation").then((m) => m.WriteupConversation),
+  <p className="text-step--1 text-ink-soft">Loading the comments…</p>,
+);
+
 export async function loader({ params, request }: Route.LoaderArgs) {
+  await Promise.all([WriteupCalculations.preload(), WriteupConversation.preload()]);
   const writeup = await getPublishedWriteup(db, params.slug);
   if (!writeup) throw data("No such write-up", { status: 404 });
   const { bodyMarkdown, ...rest } = writeup;
@@ -84,11 +94,16 @@ export default function WriteupPage({ loaderData }: Route.ComponentProps) {
           className="prose prose-lg mt-8 max-w-none font-serif prose-headings:text-deep-900 prose-a:text-deep-700 prose-table:text-step--1"
           dangerouslySetInnerHTML={{ __html: writeup.html }}
         />
-        <WriteupCalculations calculations={loaderData.calculations} unit={loaderData.readerUnit} />
+        {loaderData.calculations.length > 0 && <WriteupCalculations calculations={loaderData.calculations} unit={loaderData.readerUnit} />}
         <div id="conversation" className="mt-12 space-y-10 border-t border-cloth-200 pt-8">
           {conversation.notice && <Notice>{conversation.notice}</Notice>}
-          <DoneToo slug={writeup.slug} view={conversation.doneToo} />
-          <Comments slug={writeup.slug} comments={conversation.comments} signedIn={conversation.signedIn} draft={conversation.draft} />
+          <WriteupConversation
+            slug={writeup.slug}
+            doneToo={conversation.doneToo}
+            comments={conversation.comments}
+            signedIn={conversation.signedIn}
+            draft={conversation.draft}
+          />
         </div>
       </div>
       <aside className="space-y-8 text-step--1">
