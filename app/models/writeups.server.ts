@@ -33,20 +33,23 @@ async function attachSystems(db: Db, rows: Omit<WriteupCard, "systems">[]): Prom
   }));
 }
 
+/** What a write-up's card shows (from writeups, its author in users, and its boat). */
+const cardFields = {
+  id: s.writeups.id,
+  slug: s.writeups.slug,
+  title: s.writeups.title,
+  summary: s.writeups.summary,
+  publishedAt: s.writeups.publishedAt,
+  hullFrom: s.writeups.hullFrom,
+  hullTo: s.writeups.hullTo,
+  authorName: s.users.displayName,
+  authorCredit: sql<string>`coalesce(${s.users.creditAs}, ${s.users.displayName})`,
+  hullNumber: s.boats.hullNumber,
+};
+
 function cardQuery(db: Db) {
   return db
-    .select({
-      id: s.writeups.id,
-      slug: s.writeups.slug,
-      title: s.writeups.title,
-      summary: s.writeups.summary,
-      publishedAt: s.writeups.publishedAt,
-      hullFrom: s.writeups.hullFrom,
-      hullTo: s.writeups.hullTo,
-      authorName: s.users.displayName,
-      authorCredit: sql<string>`coalesce(${s.users.creditAs}, ${s.users.displayName})`,
-      hullNumber: s.boats.hullNumber,
-    })
+    .select(cardFields)
     .from(s.writeups)
     .innerJoin(s.users, eq(s.users.id, s.writeups.authorId))
     .leftJoin(s.boats, eq(s.boats.id, s.writeups.boatId))
@@ -86,51 +89,49 @@ export async function getSystem(db: Db, slug: string) {
   return row ?? null;
 }
 
-/** One published write-up with everything its page shows. */
+type PageSpace = {
+  slug: string;
+  name: string;
+  id: number;
+  sections: { spaceId: number; label: string; lengthMm: number; widthMm: number; heightMm: number }[];
+};
+
+/**
+ * One published write-up with everything its page shows, in one statement (its systems, zones,
+ * parts, and the spaces it used with their sections come as JSON): the page is read by every
+ * visitor, and each round trip to the database costs the server more than the database's work.
+ */
 export async function getPublishedWriteup(db: Db, slug: string) {
-  const [card] = await cardQuery(db).where(and(published, eq(s.writeups.slug, slug)));
-  if (!card) return null;
-  const [full] = await db
+  const id = sql.raw('"writeups"."id"');
+  const [page] = await db
     .select({
+      ...cardFields,
       bodyMarkdown: s.writeups.bodyMarkdown,
       difficulty: s.writeups.difficulty,
       hoursSpent: s.writeups.hoursSpent,
       costUsd: s.writeups.costUsd,
       boatName: s.boats.name,
+      systems: sql<{ slug: string; name: string }[]>`coalesce((
+        select json_agg(json_build_object('slug', sy.slug, 'name', sy.name) order by sy.sort_order, sy.slug)
+          from writeup_systems ws join systems sy on sy.slug = ws.system_slug where ws.writeup_id = ${id}), '[]'::json)`,
+      zones: sql<{ slug: string; name: string }[]>`coalesce((
+        select json_agg(json_build_object('slug', z.slug, 'name', z.name) order by z.sort_order, z.slug)
+          from writeup_zones wz join zones z on z.slug = wz.zone_slug where wz.writeup_id = ${id}), '[]'::json)`,
+      parts: sql<{ name: string; quantity: number; weightKg: number | null; note: string | null }[]>`coalesce((
+        select json_agg(json_build_object('name', p.name, 'quantity', p.quantity, 'weightKg', p.weight_kg, 'note', p.note) order by p.position)
+          from writeup_parts p where p.writeup_id = ${id}), '[]'::json)`,
+      spaces: sql<PageSpace[]>`coalesce((
+        select json_agg(json_build_object(
+                 'slug', sp.slug, 'name', sp.name, 'id', sp.id,
+                 'sections', coalesce((
+                   select json_agg(json_build_object('spaceId', ss.space_id, 'label', ss.label, 'lengthMm', ss.length_mm,
+                                                     'widthMm', ss.width_mm, 'heightMm', ss.height_mm) order by ss.position)
+                     from space_sections ss where ss.space_id = sp.id), '[]'::json)) order by sp.name)
+          from writeup_spaces x join spaces sp on sp.id = x.space_id where x.writeup_id = ${id}), '[]'::json)`,
     })
     .from(s.writeups)
+    .innerJoin(s.users, eq(s.users.id, s.writeups.authorId))
     .leftJoin(s.boats, eq(s.boats.id, s.writeups.boatId))
-    .where(eq(s.writeups.id, card.id));
-  const [withSystems] = await attachSystems(db, [card]);
-  const zones = await db
-    .select({ slug: s.zones.slug, name: s.zones.name })
-    .from(s.writeupZones)
-    .innerJoin(s.zones, eq(s.zones.slug, s.writeupZones.zoneSlug))
-    .where(eq(s.writeupZones.writeupId, card.id))
-    .orderBy(asc(s.zones.sortOrder));
-  const parts = await db
-    .select({ name: s.writeupParts.name, quantity: s.writeupParts.quantity, weightKg: s.writeupParts.weightKg, note: s.writeupParts.note })
-    .from(s.writeupParts)
-    .where(eq(s.writeupParts.writeupId, card.id))
-    .orderBy(asc(s.writeupParts.position));
-  const spaces = await db
-    .select({ slug: s.spaces.slug, name: s.spaces.name, id: s.spaces.id })
-    .from(s.writeupSpaces)
-    .innerJoin(s.spaces, eq(s.spaces.id, s.writeupSpaces.spaceId))
-    .where(eq(s.writeupSpaces.writeupId, card.id))
-    .orderBy(asc(s.spaces.name));
-  const sections = spaces.length
-    ? await db
-        .select({ spaceId: s.spaceSections.spaceId, label: s.spaceSections.label, lengthMm: s.spaceSections.lengthMm, widthMm: s.spaceSections.widthMm, heightMm: s.spaceSections.heightMm })
-        .from(s.spaceSections)
-        .where(inArray(s.spaceSections.spaceId, spaces.map((sp) => sp.id)))
-        .orderBy(asc(s.spaceSections.position))
-    : [];
-  return {
-    ...withSystems,
-    ...full,
-    zones,
-    parts,
-    spaces: spaces.map((sp) => ({ ...sp, sections: sections.filter((x) => x.spaceId === sp.id) })),
-  };
+    .where(and(published, eq(s.writeups.slug, slug)));
+  return page ?? null;
 }

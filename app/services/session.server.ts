@@ -29,8 +29,25 @@ function cookieSession(request: Request) {
 
 export type { SessionUser };
 
+/**
+ * Who a page's request is from, asked once per request: the root's loader, the route's and the
+ * helpers they call all ask, and each answer costs a signature check and a database query. Only
+ * for GET and HEAD, which change no session; an action that signs someone in or out asks afresh.
+ */
+const usersOfReads = new WeakMap<Request, Promise<SessionUser | null>>();
+
 /** The signed-in user with their roles, or null. */
-export async function getUser(request: Request): Promise<SessionUser | null> {
+export function getUser(request: Request): Promise<SessionUser | null> {
+  if (request.method !== "GET" && request.method !== "HEAD") return lookUpUser(request);
+  let user = usersOfReads.get(request);
+  if (!user) {
+    user = lookUpUser(request);
+    usersOfReads.set(request, user);
+  }
+  return user;
+}
+
+async function lookUpUser(request: Request): Promise<SessionUser | null> {
   const session = await cookieSession(request);
   const sid = session.get("sid");
   if (!sid) return null;
