@@ -324,17 +324,24 @@ describe("GET /api/search", () => {
   });
 });
 
+/** `count` published write-ups "<prefix>-<n>" with `body`, then, if given, one more titled `title` with the same body. */
+async function insertJobs(prefix: string, body: string, count: number, slug?: string, title?: string) {
+  const author = await authorId();
+  await t.db.execute(sql`
+    insert into writeups (slug, title, summary, body_text, status, author_id, published_at)
+    select ${prefix} || '-' || g, 'Job ' || g, 'A job.', ${body}, 'published', ${author}, '2024-01-01'
+      from generate_series(1, ${count}::int) g`);
+  if (slug && title) {
+    await t.db.execute(sql`
+      insert into writeups (slug, title, summary, body_text, status, author_id, published_at)
+      values (${slug}, ${title}, 'A job.', ${body}, 'published', ${author}, '2024-01-01')`);
+  }
+}
+
 describe("a search that matches more than it reads (docs/decisions/0008)", () => {
   it("counts up to MATCH_CAP of a kind, says 'more than', ranks a title match it reads through the title index, and offers the filters without counts", async () => {
-    const author = await authorId();
     // MATCH_CAP + 20 write-ups with a word of their own in the body; the last one written also has it in its title.
-    await t.db.execute(sql`
-      insert into writeups (slug, title, summary, body_text, status, author_id, published_at)
-      select 'gunwale-' || g, 'Job ' || g, 'A job.', 'The quillwort gasket was replaced.', 'published', ${author}, '2024-01-01'
-        from generate_series(1, ${MATCH_CAP + 19}) g`);
-    await t.db.execute(sql`
-      insert into writeups (slug, title, summary, body_text, status, author_id, published_at)
-      values ('quillwort-title', 'Quillwort gasket renewed', 'A job.', 'The quillwort gasket was replaced.', 'published', ${author}, '2024-01-01')`);
+    await insertJobs("gunwale", "The quillwort gasket was replaced.", MATCH_CAP + 19, "quillwort-title", "Quillwort gasket renewed");
     const { body } = await api("q=quillwort&limit=5");
     expect(body).toMatchObject({ total: MATCH_CAP, totalCapped: true });
     expect(body.results).toHaveLength(5);
@@ -349,19 +356,9 @@ describe("a search that matches more than it reads (docs/decisions/0008)", () =>
   });
 
   it("reads its matches through the index when the table's first rows hold too few of them, with the same answer", async () => {
-    const author = await authorId();
     // The first rows a search tries hold none of the matches (app/models/search.server.ts, PROBE_ROWS).
-    await t.db.execute(sql`
-      insert into writeups (slug, title, summary, body_text, status, author_id, published_at)
-      select 'filler-' || g, 'Other job ' || g, 'A job.', 'The hatch seal was replaced.', 'published', ${author}, '2024-01-01'
-        from generate_series(1, 1200) g`);
-    await t.db.execute(sql`
-      insert into writeups (slug, title, summary, body_text, status, author_id, published_at)
-      select 'sedgewick-' || g, 'Job ' || g, 'A job.', 'The sedgewick fitting was replaced.', 'published', ${author}, '2024-01-01'
-        from generate_series(1, ${MATCH_CAP + 19}) g`);
-    await t.db.execute(sql`
-      insert into writeups (slug, title, summary, body_text, status, author_id, published_at)
-      values ('sedgewick-title', 'Sedgewick fitting renewed', 'A job.', 'The sedgewick fitting was replaced.', 'published', ${author}, '2024-01-01')`);
+    await insertJobs("filler", "The hatch seal was replaced.", 1200);
+    await insertJobs("sedgewick", "The sedgewick fitting was replaced.", MATCH_CAP + 19, "sedgewick-title", "Sedgewick fitting renewed");
     const { body } = await api("q=sedgewick&limit=5");
     expect(body).toMatchObject({ total: MATCH_CAP, totalCapped: true });
     expect(body.results[0].url).toBe("/writeups/sedgewick-title");
