@@ -22,6 +22,11 @@ function plural(n: number, one: string, many = `${one}s`) {
   return `${n.toLocaleString("en-GB")} ${n === 1 ? one : many}`;
 }
 
+/** Text that does not break across lines (unbreakable spaces). */
+function keepTogether(text: string): string {
+  return text.replace(/ /g, "\u00a0");
+}
+
 function hostAndPath(appUrl: string, path: string): string {
   const url = new URL(path, appUrl);
   return `${url.host}${url.pathname}`;
@@ -103,9 +108,13 @@ function Entry({ entry, appUrl, photoSrc }: { entry: DigestEntry; appUrl: string
                   <tr key={m.space}>
                     <th scope="row">{m.space}</th>
                     <td>
-                      <span className="dg-dim">{formatDimensions(box, "in")}</span>{" "}
-                      <span className="dg-dim dg-dim-mm">({formatDimensions(box, "mm")})</span>{" "}
-                      <span className="dg-dim dg-dim-n">{m.measurements > 1 ? `consensus of ${m.measurements}` : m.measurements === 1 ? "1 measurement" : "as registered"}</span>
+                      {/* Unbreakable spaces keep each part on one line with a single element (the
+                          tagged PDF makes a structure element of every element). */}
+                      {keepTogether(formatDimensions(box, "in"))}{" "}
+                      <span className="dg-dim-mm">
+                        {keepTogether(`(${formatDimensions(box, "mm")})`)}{" "}
+                        {keepTogether(`· ${m.measurements > 1 ? `consensus of ${m.measurements}` : m.measurements === 1 ? "1 measurement" : "as registered"}`)}
+                      </span>
                     </td>
                   </tr>
                 );
@@ -116,7 +125,7 @@ function Entry({ entry, appUrl, photoSrc }: { entry: DigestEntry; appUrl: string
         <p className="dg-entry-foot">
           {entry.systems.map((name) => <span key={name} className="dg-tag">{name}</span>)}
           {entry.doneToo > 0 && <span className="dg-done">Done on {plural(entry.doneToo, "other boat")} too</span>}
-          <span>{hostAndPath(appUrl, `/writeups/${entry.slug}`)}</span>
+          {hostAndPath(appUrl, `/writeups/${entry.slug}`)}
         </p>
       </div>
     </article>

@@ -106,9 +106,7 @@ export const DIGEST_CSS = String.raw`
 .dg-measures caption { text-align: left; font-weight: 600; color: var(--dg-deep-700); padding-bottom: 0.2rem; }
 .dg-measures th, .dg-measures td { text-align: left; padding: 0.25rem 0.6rem 0.25rem 0; border-top: 1px solid var(--dg-cloth-200); vertical-align: top; }
 .dg-measures th { font-weight: 500; color: var(--dg-ink); width: 42%; }
-.dg-dim { white-space: nowrap; }
-.dg-dim-mm, .dg-dim-n { color: var(--dg-ink-soft); }
-.dg-dim-n::before { content: "· "; }
+.dg-dim-mm { color: var(--dg-ink-soft); }
 .dg-measures td { font-variant-numeric: tabular-nums lining-nums; color: var(--dg-ink); }
 .dg-entry-foot { margin-top: 0.6rem; display: flex; flex-wrap: wrap; gap: 0.3rem 1rem; font-family: var(--dg-sans); font-size: 0.75rem; color: var(--dg-ink-soft); }
 .dg-tag { display: inline-block; padding: 0 0.35rem; border: 1px solid var(--dg-deep-200); color: var(--dg-deep-700); border-radius: 2px; }

@@ -64,9 +64,8 @@ export const UNFILED_SECTION = { slug: "", name: "Other work" } as const;
 export const MOST_DONE_TOO_LIMIT = 5;
 
 /**
- * Beyond this many write-ups a digest is a reference volume: set more densely in print, and its
- * PDF is not tagged for screen readers (tagging a few hundred pages costs Chromium about 40 %
- * more time and triples the file; the web page is there for screen readers).
+ * Beyond this many write-ups a digest is a reference volume: set more densely in print (its PDF
+ * is tagged for screen readers all the same).
  */
 export const DIGEST_LARGE_ENTRIES = 150;
 

@@ -47,7 +47,7 @@ export function digestPrintHtml(snapshot: DigestSnapshot, options: { className: 
   );
   const title = `${options.className} ${digestTitle(snapshot.year, snapshot.edition).toLowerCase()}`;
   return `<!doctype html><html lang="en"><head><meta charset="utf-8"><title>${escapeHtml(title)}</title>`
-    + `<style>${literataFontCss()}\nhtml,body{margin:0;background:#fff}${DIGEST_CSS}</style></head><body>${body}</body></html>`;
+    + `<style>${literataFontCss()}\nhtml,body{margin:0;background:#fff}${DIGEST_CSS}\n${digestFooterCss(options.className, snapshot)}</style></head><body>${body}</body></html>`;
 }
 
 async function streamToBuffer(stream: ReadableStream<Uint8Array>): Promise<Buffer> {
@@ -61,21 +61,25 @@ async function streamToBuffer(stream: ReadableStream<Uint8Array>): Promise<Buffe
   return Buffer.concat(chunks);
 }
 
+/** Pixels per inch a thumbnail is made for: sharp on paper (150-200 dpi is the usual print resolution), no more. */
+export const THUMBNAIL_PPI = 200;
+
 /**
  * The thumbnails the digest shows, fetched from the photo store as data: URLs (missing ones are
- * skipped). Printed about 1.5 in wide, so they are made 300 px wide (200 dpi) JPEGs, which
+ * skipped). They are made at the size they print (`printWidthIn`, THUMBNAIL_PPI), as JPEGs, which
  * Chromium embeds in the PDF as they are instead of re-compressing decoded pixels.
  */
-export async function loadThumbnails(snapshot: DigestSnapshot, fetchObject = getObject): Promise<Map<string, string>> {
+export async function loadThumbnails(snapshot: DigestSnapshot, fetchObject = getObject, printWidthIn = thumbnailPrintWidthIn(snapshot)): Promise<Map<string, string>> {
   const keys = [...new Set(snapshot.sections.flatMap((x) => x.entries.map((e) => e.thumbnailKey)).filter((k): k is string => !!k))];
   const photos = new Map<string, string>();
+  const width = Math.ceil(printWidthIn * THUMBNAIL_PPI);
   // A few at a time: a digest of a busy year may show hundreds.
   for (let i = 0; i < keys.length; i += 8) {
     await Promise.all(keys.slice(i, i + 8).map(async (key) => {
       const object = await fetchObject(key).catch(() => null);
       if (!object) return;
       const bytes = await streamToBuffer(object.body);
-      const jpeg = await sharp(bytes).resize({ width: 300, withoutEnlargement: true }).flatten({ background: "#ffffff" }).jpeg({ quality: 72 }).toBuffer()
+      const jpeg = await sharp(bytes).resize({ width, withoutEnlargement: true }).flatten({ background: "#ffffff" }).jpeg({ quality: 80 }).toBuffer()
         .catch(() => null);
       if (jpeg) photos.set(key, `data:image/jpeg;base64,${jpeg.toString("base64")}`);
     }));
@@ -83,16 +87,37 @@ export async function loadThumbnails(snapshot: DigestSnapshot, fetchObject = get
   return photos;
 }
 
-export function digestFooter(className: string, snapshot: DigestSnapshot): string {
-  const label = escapeHtml(`${className} owners' association · ${digestTitle(snapshot.year, snapshot.edition)}`);
-  return `<div style="width:100%;padding:0 0.75in;font:7.5pt Arial,Helvetica,sans-serif;color:#4d5a61;display:flex;justify-content:space-between">`
-    + `<span>${label}</span><span><span class="pageNumber"></span> / <span class="totalPages"></span></span></div>`;
+/**
+ * How wide a thumbnail prints, in inches: .dg-thumb is 9rem (1.5 in), 5.5rem (0.92 in) in a
+ * large year's denser print (components/digest-style.ts; 1rem is 16 CSS px, 96 px to the inch).
+ */
+export function thumbnailPrintWidthIn(snapshot: DigestSnapshot): number {
+  const entries = snapshot.sections.reduce((n, x) => n + x.entries.length, 0);
+  return (entries > DIGEST_LARGE_ENTRIES ? 5.5 : 9) * 16 / 96;
+}
+
+/** A CSS string literal (for `content:`). */
+function cssString(text: string): string {
+  return `"${text.replace(/[\\"]/g, "\\$&").replace(/[\n\r\f]/g, " ").replace(/</g, "\\3c ")}"`;
+}
+
+/**
+ * The foot of every printed page: the digest's name on the left, "page / pages" on the right, as
+ * CSS page-margin boxes. (Chromium lays these out with the document itself; its
+ * displayHeaderFooter template is a small document of its own for every page, about a second of
+ * a 350-page year.)
+ */
+export function digestFooterCss(className: string, snapshot: DigestSnapshot): string {
+  const label = `${className} owners' association · ${digestTitle(snapshot.year, snapshot.edition)}`;
+  const box = "font:7.5pt Arial,Helvetica,sans-serif;color:#4d5a61;font-variant-numeric:normal;vertical-align:bottom;padding-bottom:0.2in";
+  return `@page{@bottom-left{content:${cssString(label)};${box};text-align:left}`
+    + `@bottom-right{content:counter(page) " / " counter(pages);${box};text-align:right}}`;
 }
 
 /** The PDF of an edition. */
 export async function buildDigestPdf(snapshot: DigestSnapshot, options: { className: string; appUrl: string; fetchObject?: typeof getObject }): Promise<Uint8Array> {
   const photos = await loadThumbnails(snapshot, options.fetchObject);
   const html = digestPrintHtml(snapshot, { ...options, photos });
-  const entries = snapshot.sections.reduce((n, x) => n + x.entries.length, 0);
-  return htmlToPdf(html, { footerTemplate: digestFooter(options.className, snapshot), tagged: entries <= DIGEST_LARGE_ENTRIES });
+  // Tagged whatever its size: the PDF members keep must be readable with a screen reader too.
+  return htmlToPdf(html, { tagged: true });
 }
