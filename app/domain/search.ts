@@ -254,14 +254,22 @@ export function readHeadline(marked: string): Snippet {
   }
   const clean = text.replace(/\s+/g, " ");
   if (clean === text) return { text, highlights };
-  // Collapse whitespace and move the highlights with it.
+  // Collapse whitespace and move the highlights with it. A line break between two of the text's
+  // blocks (a heading and the paragraph after it) becomes " · ", so they do not read as one sentence.
+  const inHit = (i: number) => highlights.some(([a, b]) => a <= i && i < b);
   const map: number[] = [];
   let out = "";
   for (let i = 0; i < text.length; i++) {
     map[i] = out.length;
-    const ws = /\s/.test(text[i]);
-    if (ws && (out.length === 0 || out.endsWith(" "))) continue;
-    out += ws ? " " : text[i];
+    if (!/\s/.test(text[i])) {
+      out += text[i];
+      continue;
+    }
+    if (out.length === 0 || out.endsWith(" ")) continue;
+    let end = i;
+    while (end < text.length && /\s/.test(text[end])) end++;
+    const blocks = end < text.length && !inHit(i) && text.slice(i, end).includes("\n");
+    out += blocks ? " · " : " ";
   }
   map[text.length] = out.length;
   const trimmed = out.trimEnd();

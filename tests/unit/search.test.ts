@@ -113,6 +113,12 @@ describe("snippets", () => {
     ]);
   });
 
+  it("marks where one block of the text ends and the next begins, and keeps the highlights on their words", () => {
+    const s = readHeadline("Why move it\nOn a Mk I the \u0002battery\u0003 sat forward.\n\n");
+    expect(s.text).toBe("Why move it · On a Mk I the battery sat forward.");
+    expect(s.highlights.map(([a, b]) => s.text.slice(a, b))).toEqual(["battery"]);
+  });
+
   it("collapses whitespace and keeps each highlight on its word", () => {
     fc.assert(
       fc.property(
