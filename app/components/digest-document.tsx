@@ -3,6 +3,7 @@
 import { cautionsFor } from "~/domain/cautions";
 import { DIGEST_LARGE_ENTRIES, digestTitle, formatDigestDate, type DigestEntry, type DigestSnapshot } from "~/domain/digest";
 import { layoutBarChart } from "~/domain/digest-chart";
+import { hullBesideCredit } from "~/domain/hulls";
 import { formatDimensions } from "~/domain/units";
 
 export type DigestDocumentProps = {
@@ -86,7 +87,7 @@ export function SystemsChart({ rows }: { rows: { name: string; count: number }[]
 function Entry({ entry, appUrl, photoSrc }: { entry: DigestEntry; appUrl: string; photoSrc: DigestDocumentProps["photoSrc"] }) {
   const src = entry.thumbnailKey ? photoSrc(entry.thumbnailKey) : null;
   const boat = entry.boatName && !entry.credit.includes(entry.boatName) ? entry.boatName : null;
-  const hull = entry.hullNumber !== null && !entry.credit.includes(String(entry.hullNumber)) ? `hull ${entry.hullNumber}` : null;
+  const hull = hullBesideCredit(entry.credit, entry.hullNumber) === null ? null : `hull ${entry.hullNumber}`;
   const url = new URL(`/writeups/${entry.slug}`, appUrl).toString();
   return (
     <article className={`dg-entry${src ? " dg-has-photo" : ""}`} data-writeup={entry.slug}>

@@ -1,5 +1,5 @@
 import { Link } from "react-router";
-import { describeHullRange } from "~/domain/hulls";
+import { describeHullRange, hullBesideCredit } from "~/domain/hulls";
 import type { WriteupCard as Card } from "~/models/writeups.server";
 
 export function formatDate(value: Date | string | null): string {
@@ -33,8 +33,8 @@ export function WriteupCard({ writeup }: { writeup: Card }) {
         </Link>
       </h3>
       <p className="mt-1 text-step--1 text-ink-soft">
-        {writeup.authorName}
-        {writeup.hullNumber ? ` · hull ${writeup.hullNumber}` : ""}
+        {writeup.authorCredit}
+        {hullBesideCredit(writeup.authorCredit, writeup.hullNumber) ? ` · hull ${writeup.hullNumber}` : ""}
         {writeup.publishedAt ? ` · ${formatDate(writeup.publishedAt)}` : ""}
         {" · "}
         {describeHullRange({ from: writeup.hullFrom, to: writeup.hullTo })}

@@ -48,3 +48,12 @@ export function describeHullRange({ from, to }: HullRange): string {
 export function rangeIncludes(range: HullRange, hull: number): boolean {
   return hull >= range.from && hull <= range.to;
 }
+
+/**
+ * The hull number to show beside an author's credit, or null when the credit already names it
+ * ("Nora P., hull 147" needs no second "hull 147").
+ */
+export function hullBesideCredit(credit: string, hull: number | null): number | null {
+  if (hull === null) return null;
+  return new RegExp(`(^|\\D)${hull}(\\D|$)`).test(credit) ? null : hull;
+}

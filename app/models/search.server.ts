@@ -321,7 +321,7 @@ async function page(db: DbOrTx, words: string | null, f: SearchFilters, fitIds: 
       left join lateral (
         select json_build_object(
                  'slug', w.slug, 'title', w.title, 'headline', ${headline(sql`w.summary || E'\n' || w.body_text`, sql`w.summary`)},
-                 'author', u.display_name, 'hull_number', b.hull_number, 'published_at', w.published_at,
+                 'author', coalesce(u.credit_as, u.display_name), 'hull_number', b.hull_number, 'published_at', w.published_at,
                  'hull_from', w.hull_from, 'hull_to', w.hull_to,
                  'done_too', (select count(*) from done_too d where d.writeup_id = w.id),
                  'systems', coalesce((select json_agg(json_build_object('slug', sy.slug, 'name', sy.name) order by sy.sort_order, sy.slug)

@@ -6,7 +6,7 @@ import { buttonClass, inputClass, quietButtonClass } from "~/components/ui/field
 import { formatDate, SystemChips } from "~/components/writeup-card";
 import { db } from "~/db/index.server";
 import { describeBox } from "~/domain/fit-search";
-import { CLASS_NAME, describeHullRange } from "~/domain/hulls";
+import { CLASS_NAME, describeHullRange, hullBesideCredit } from "~/domain/hulls";
 import {
   hasFilters, KIND_LABEL, MATCH_CAP, pageCount, PAGE_SIZE, parseSearchParams, SEARCH_KINDS, searchHref, type SearchKind,
 } from "~/domain/search";
@@ -240,7 +240,7 @@ function ResultCard({ r, unit }: { r: SearchResult; unit: LengthUnit }) {
           {det.type === "writeup" && (
             <>
               {det.author}
-              {det.hullNumber ? ` · hull ${det.hullNumber}` : ""}
+              {hullBesideCredit(det.author, det.hullNumber) ? ` · hull ${det.hullNumber}` : ""}
               {det.publishedAt ? ` · ${formatDate(det.publishedAt)}` : ""}
               {` · ${describeHullRange(det.hulls)}`}
               {det.doneToo > 0 ? ` · done on ${det.doneToo} more ${det.doneToo === 1 ? "boat" : "boats"}` : ""}

@@ -338,6 +338,21 @@ async function insertJobs(prefix: string, body: string, count: number, slug?: st
   }
 }
 
+describe("who a result is credited to", () => {
+  it("shows each write-up's author as they asked to be credited (content-seed/members.yaml), never their full name instead", async () => {
+    const members = YAML.parse(fs.readFileSync(path.join(SEED_DIR, "members.yaml"), "utf8")) as { email: string; credit?: string; displayName: string }[];
+    const answer = await search(t.db, req("battery"));
+    const writeups = answer.results.filter((r) => r.detail.type === "writeup");
+    expect(writeups.length).toBeGreaterThan(1);
+    for (const r of writeups) {
+      const [row] = (await t.db.execute<{ email: string }>(sql`
+        select u.email from writeups w join users u on u.id = w.author_id where w.id = ${r.id}`)).rows;
+      const member = members.find((m) => m.email === row.email)!;
+      expect({ writeup: r.slug, author: r.detail.type === "writeup" ? r.detail.author : "" }).toEqual({ writeup: r.slug, author: member.credit ?? member.displayName });
+    }
+  });
+});
+
 describe("a search that matches more than it reads (docs/decisions/0008)", () => {
   it("counts up to MATCH_CAP of a kind, says 'more than', ranks a title match it reads through the title index, and offers the filters without counts", async () => {
     // MATCH_CAP + 20 write-ups with a word of their own in the body; the last one written also has it in its title.
