@@ -214,9 +214,9 @@ function readInteger(
 ): { ok: true; value: number | null } | ParamError {
   const raw = (q.get(name) ?? "").trim();
   if (raw === "") return { ok: true, value: fallback };
-  if (!/^\d+$/.test(raw)) return bad(name, `a whole number from ${min} to ${max}.`);
+  if (!/^\d+$/.test(raw)) return bad(name, `must be a whole number from ${min} to ${max}.`);
   const value = Number(raw);
-  if (value < min || value > max) return bad(name, `a whole number from ${min} to ${max}.`);
+  if (value < min || value > max) return bad(name, `must be a whole number from ${min} to ${max}.`);
   return { ok: true, value };
 }
 

@@ -121,6 +121,12 @@ const FIELD_LABELS: Record<string, string> = {
   hull: "Your hull number",
 };
 
+/** "the length", "your hull number": a field's label inside a sentence. */
+function fieldPhrase(label: string): string {
+  const lower = label.toLowerCase();
+  return lower.startsWith("your ") ? lower : `the ${lower}`;
+}
+
 export default function FitPage({ loaderData }: Route.ComponentProps) {
   const { unit, items, form: initial } = loaderData;
   const [form, setForm] = useState<FitForm>(initial);
@@ -168,7 +174,9 @@ export default function FitPage({ loaderData }: Route.ComponentProps) {
   const problem = live.fetched ? live.problem : loaderData.problem;
   const answer = !complete(form) || problem ? null : live.fetched ? (fetcher.data ?? loaderData.answer) : loaderData.answer;
   const busy = fetcher.state === "loading" || (live.fetched && !fetcher.data && complete(form) && !problem);
-  const error = (field: string) => (problem?.parameter === field ? [problem.message.replace(/^[a-z]+: /, "")] : undefined);
+  // The API's message without its "parameter: " prefix, as a sentence beside the field.
+  const error = (field: string) =>
+    problem?.parameter === field ? [problem.message.replace(/^[a-z]+: (.)/, (_, first: string) => first.toUpperCase())] : undefined;
   const hullVariant = /^\d+$/.test(form.hull.trim()) ? variantOf(Number(form.hull))?.label : undefined;
   const cautions = cautionsForItem(picked ? { kind: picked.kind, name: picked.name } : null);
 
@@ -269,7 +277,7 @@ export default function FitPage({ loaderData }: Route.ComponentProps) {
           {!complete(form) ? (
             <p className="text-ink-soft">Pick an item or type its three sizes.</p>
           ) : problem ? (
-            <p className="text-ink-soft">Correct the {FIELD_LABELS[problem.parameter]?.toLowerCase() ?? problem.parameter} above to see the spaces.</p>
+            <p className="text-ink-soft">Correct {fieldPhrase(FIELD_LABELS[problem.parameter] ?? problem.parameter)} above to see the spaces.</p>
           ) : answer ? (
             <p id="fit-summary">
               {results.length === 0

@@ -66,7 +66,13 @@ export default function ReviewQueue({ loaderData }: Route.ComponentProps) {
         <button type="submit" className={quietButtonClass}>Filter</button>
       </Form>
       {rows.length === 0 ? (
-        <p className="text-ink-soft">Nothing is waiting. Thank you.</p>
+        system || author ? (
+          <p className="text-ink-soft">
+            No write-up waiting for review matches this filter. <Link to="/review">Show every write-up waiting</Link>.
+          </p>
+        ) : (
+          <p className="text-ink-soft">Nothing is waiting. Thank you.</p>
+        )
       ) : (
         <table className="w-full border-collapse text-left">
           <thead>

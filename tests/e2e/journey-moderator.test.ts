@@ -34,6 +34,15 @@ describe("a moderator reviews the queue", () => {
     await journey.page.screenshot({ path: screenshotPath("journey-moderator-queue"), fullPage: true });
   });
 
+  it("is told when a filter hides every waiting write-up, not that nothing waits, and clears it", async () => {
+    await journey.page.getByLabel("Author").fill("nobody of that name");
+    await journey.page.getByRole("button", { name: "Filter" }).click();
+    await journey.page.getByText("No write-up waiting for review matches this filter.").waitFor();
+    expect(await journey.page.getByText("Nothing is waiting").count()).toBe(0);
+    await journey.page.getByRole("link", { name: "Show every write-up waiting" }).click();
+    for (const title of waiting) await journey.page.getByRole("link", { name: title }).waitFor();
+  });
+
   it("asks for changes: a reason is required, and then the author is e-mailed it", async () => {
     await journey.page.getByRole("link", { name: LIGHTS }).click();
     await journey.page.getByRole("heading", { level: 1, name: LIGHTS }).waitFor();

@@ -35,6 +35,11 @@ describe("parseFitParams (GET /api/fit)", () => {
     expect(r).toMatchObject({ ok: true, unit: "in", orientation: "any", clearanceMm: 0, count: 1, hull: null, limit: 50 });
   });
 
+  it("refuses a hull number outside the class with a sentence that names the range (hulls 1-612 of the demo class)", () => {
+    const r = parseFitParams(q("length=13&width=7&height=9&hull=9999"));
+    expect(r).toEqual({ ok: false, parameter: "hull", message: "hull: must be a whole number from 1 to 612." });
+  });
+
   it("reads upright, clearance, count and hull", () => {
     const r = parseFitParams(q("length=13&width=7&height=9&upright=true&clearance=1/2&count=2&hull=402"));
     expect(r).toMatchObject({ ok: true, orientation: "upright", clearanceMm: 12.7, count: 2, hull: 402 });
