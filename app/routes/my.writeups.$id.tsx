@@ -182,6 +182,7 @@ export default function WriteupEditor({ loaderData, actionData }: Route.Componen
   const [systemsChecked, setSystemsChecked] = useState<string[]>(restored?.value.systems ?? defaultValue.systems);
 
   // Keep what is typed on this device, so that a lost connection or a reload loses nothing.
+  const saveTimer = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
   const [pending, setPending] = useState<{ value: EditorValue; savedAt: string } | null>(null);
   useEffect(() => {
     try {
@@ -209,6 +210,8 @@ export default function WriteupEditor({ loaderData, actionData }: Route.Componen
   }, [storageKey, location.search]);
   useEffect(() => {
     if (actionData && "saved" in actionData && actionData.saved) {
+      clearTimeout(saveTimer.current);
+      latest.current = null;
       try { window.localStorage.removeItem(storageKey); } catch { /* nothing kept */ }
     }
   }, [actionData, storageKey]);
@@ -232,15 +235,29 @@ export default function WriteupEditor({ loaderData, actionData }: Route.Componen
       parts: parts.filter(Boolean),
     };
   }
-  const saveTimer = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
-  function keepOnDevice() {
+  // What the form holds is read at every keystroke; it is written to the device at most every
+  // 400 ms, and at once when the editor is left (a link, the back button, closing the tab), so that
+  // the last words typed before leaving are kept too.
+  const latest = useRef<EditorValue | null>(null);
+  function writeKept() {
     clearTimeout(saveTimer.current);
-    saveTimer.current = setTimeout(() => {
-      const value = snapshot();
-      if (!value) return;
-      try { window.localStorage.setItem(storageKey, JSON.stringify({ value, savedAt: new Date().toISOString() })); } catch { /* full or unavailable */ }
-    }, 400);
+    const value = latest.current;
+    latest.current = null;
+    if (!value) return;
+    try { window.localStorage.setItem(storageKey, JSON.stringify({ value, savedAt: new Date().toISOString() })); } catch { /* full or unavailable */ }
   }
+  function keepOnDevice() {
+    latest.current = snapshot();
+    clearTimeout(saveTimer.current);
+    saveTimer.current = setTimeout(writeKept, 400);
+  }
+  useEffect(() => {
+    window.addEventListener("pagehide", writeKept);
+    return () => {
+      window.removeEventListener("pagehide", writeKept);
+      writeKept();
+    };
+  }, [storageKey]);
 
   // The live preview, through the same pipeline as the published page.
   const previewTimer = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);

@@ -47,6 +47,19 @@ describe("typed text survives", () => {
     await page.getByTestId("preview").getByRole("heading", { name: "The panel" }).waitFor();
   });
 
+  it("leaving by a link at once after typing: back in the editor, it offers the text, the last words too", async () => {
+    await page.getByLabel("Title").fill(`${TITLE} (left at once)`);
+    // No pause: the link is followed within the 400 ms the editor waits before writing to the device.
+    await page.getByRole("link", { name: "← Your write-ups" }).click();
+    await page.getByRole("heading", { level: 1, name: "Your write-ups" }).waitFor();
+    expect(await kept(NEW_KEY)).toContain("(left at once)");
+    await page.goto(`${BASE_URL}/my/writeups/new`);
+    await editorReady("A new write-up");
+    await page.getByRole("button", { name: "Put it back" }).click();
+    expect(await page.getByLabel("Title").inputValue()).toBe(`${TITLE} (left at once)`);
+    await page.getByLabel("Title").fill(TITLE);
+  });
+
   it("a refused submit: the message sits beside the field and every field keeps its text", async () => {
     await page.getByLabel("Summary").fill("Too short");
     await page.getByRole("button", { name: "Send for review" }).click();
