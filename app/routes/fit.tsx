@@ -342,7 +342,7 @@ function FitResultCard({ result: r, rank, unit, item, count, clearance }: {
         <dt className="text-ink-soft">Room left</dt>
         <dd className="tabular-nums">
           {len(r.clearances.length)} fore and aft, {len(r.clearances.width)} across, {len(r.clearances.height)} up
-          {clearance > 0 ? <span className="text-ink-soft"> (your clearance included)</span> : null}
+          {clearance > 0 ? <span className="text-ink-soft"> (your {len(clearance)} on each side comes out of this)</span> : null}
         </dd>
         <dt className="text-ink-soft">Opening</dt>
         <dd>
@@ -350,7 +350,12 @@ function FitResultCard({ result: r, rank, unit, item, count, clearance }: {
             ? "not recorded: check it yourself"
             : r.throughOpening
               ? `${opening}: it goes through`
-              : <strong className="font-semibold">{opening}: too small. The opening must be enlarged.</strong>}
+              : (
+                <>
+                  <strong className="font-semibold">{opening}: too small. The opening must be enlarged.</strong>
+                  {clearance > 0 ? <span className="text-ink-soft"> It is checked for the item with your {len(clearance)} on each side; with less clearance it may go through.</span> : null}
+                </>
+              )}
         </dd>
       </dl>
       <div className="mt-3">
