@@ -107,4 +107,14 @@ describe("typed text survives", () => {
     await editorReady("A new write-up");
     expect(await page.getByRole("button", { name: "Put it back" }).count()).toBe(0);
   });
+
+  it("the first save of a new write-up says the draft is saved", async () => {
+    await page.getByLabel("Title").fill(`${TITLE}, second`);
+    await page.getByLabel("Summary").fill("A second panel, for the cockpit lights.");
+    await page.getByLabel("The write-up").fill(BODY);
+    await page.getByLabel("Electrical").check();
+    await page.getByRole("button", { name: "Save draft" }).click();
+    await page.getByRole("heading", { level: 1, name: "Edit your write-up" }).waitFor();
+    await page.getByText("Draft saved.").waitFor();
+  });
 });
