@@ -65,8 +65,8 @@ export function SiteHeader({ className, query, user }: { className: string; quer
             id="site-search"
             label="Search write-ups, spaces and items"
             defaultValue={query}
-            placeholder="battery box under the settee"
-            inputClassName="w-full rounded-md border border-deep-500 bg-deep-900/40 px-3 py-2 text-cloth-50 placeholder:text-deep-200"
+            placeholder="e.g. battery box under the settee"
+            inputClassName="w-full rounded-md border border-deep-500 bg-deep-900/40 px-3 py-2 text-cloth-50 placeholder:italic placeholder:text-deep-200"
             listClassName="sm:left-auto sm:w-[28rem]"
           />
           <button type="submit" className="rounded-md bg-varnish-500 px-3 py-2 font-medium text-deep-900 hover:bg-varnish-400">

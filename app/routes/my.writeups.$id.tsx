@@ -25,6 +25,7 @@ import {
 import { listBoatsOf } from "~/models/users.server";
 import { readNotice, redirectWithNotice, requirePermission } from "~/services/session.server";
 import { readForm } from "~/services/form-body.server";
+import { formatDate } from "~/components/writeup-card";
 
 export function meta() {
   return [{ title: "Write-up editor · Sistership" }];
@@ -323,7 +324,7 @@ export default function WriteupEditor({ loaderData, actionData }: Route.Componen
           <ul className="mt-2 space-y-2">
             {decisions.map((d) => (
               <li key={d.id}>
-                <strong>{d.decision === "withdraw" ? "Withdrawn" : DECISION_LABELS[d.decision]}</strong> (revision {d.revisionNumber}, {d.by}, {new Date(d.createdAt).toLocaleDateString("en-GB")}){d.reason ? `: ${d.reason}` : ""}
+                <strong>{d.decision === "withdraw" ? "Withdrawn" : DECISION_LABELS[d.decision]}</strong> (revision {d.revisionNumber}, {d.by}, {formatDate(d.createdAt)}){d.reason ? `: ${d.reason}` : ""}
               </li>
             ))}
           </ul>

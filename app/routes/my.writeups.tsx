@@ -5,6 +5,7 @@ import { db } from "~/db/index.server";
 import { STATE_LABELS } from "~/domain/writeup-lifecycle";
 import { listMyWriteups } from "~/models/writeup-editing.server";
 import { readNotice, requirePermission } from "~/services/session.server";
+import { formatDate } from "~/components/writeup-card";
 
 export function meta() {
   return [{ title: "Your write-ups · Sistership" }];
@@ -43,7 +44,7 @@ export default function MyWriteups({ loaderData }: Route.ComponentProps) {
                 <td className="py-2 pr-3">
                   {r.status === "published" && r.latestStatus !== "published" ? `Published; a new revision is “${STATE_LABELS[r.latestStatus]}”` : STATE_LABELS[r.status]}
                 </td>
-                <td className="py-2 text-step--1 text-ink-soft">{new Date(r.updatedAt).toLocaleDateString("en-GB")}</td>
+                <td className="py-2 text-step--1 text-ink-soft">{formatDate(r.updatedAt)}</td>
               </tr>
             ))}
           </tbody>

@@ -17,6 +17,7 @@ import { env } from "~/services/env.server";
 import { kickOutbox } from "~/services/outbox-worker.server";
 import { redirectWithNotice, requirePermission } from "~/services/session.server";
 import { readForm } from "~/services/form-body.server";
+import { formatDate } from "~/components/writeup-card";
 
 export function meta({ loaderData }: Route.MetaArgs) {
   return [{ title: loaderData ? `Review: ${loaderData.revision.title} · Sistership` : "Review · Sistership" }];
@@ -177,7 +178,7 @@ export default function ReviewPage({ loaderData, actionData }: Route.ComponentPr
             <h2 className="font-sans text-step-0 font-semibold">Earlier decisions</h2>
             <ul className="mt-2 space-y-2 text-step--1">
               {decisions.map((d) => (
-                <li key={d.id}><strong>{d.decision === "withdraw" ? "Withdrawn" : DECISION_LABELS[d.decision]}</strong>, revision {d.revisionNumber}, by {d.by} on {new Date(d.createdAt).toLocaleDateString("en-GB")}{d.reason ? `: ${d.reason}` : ""}</li>
+                <li key={d.id}><strong>{d.decision === "withdraw" ? "Withdrawn" : DECISION_LABELS[d.decision]}</strong>, revision {d.revisionNumber}, by {d.by} on {formatDate(d.createdAt)}{d.reason ? `: ${d.reason}` : ""}</li>
               ))}
             </ul>
           </section>

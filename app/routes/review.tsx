@@ -4,6 +4,7 @@ import { inputClass, Notice, quietButtonClass } from "~/components/ui/field";
 import { db } from "~/db/index.server";
 import { listSystemAndZoneChoices, type QueueSort, reviewQueue } from "~/models/writeup-editing.server";
 import { readNotice, requirePermission } from "~/services/session.server";
+import { formatDate } from "~/components/writeup-card";
 
 export function meta() {
   return [{ title: "Waiting for review · Sistership" }];
@@ -92,7 +93,7 @@ export default function ReviewQueue({ loaderData }: Route.ComponentProps) {
                 </td>
                 <td className="py-2 pr-3 text-step--1">{r.systems.map((x) => names.get(x) ?? x).join(", ")}</td>
                 <td className="py-2 pr-3">{r.author}</td>
-                <td className="py-2 text-step--1">{r.submittedAt ? `${new Date(r.submittedAt).toLocaleDateString("en-GB")} (${waitingFor(r.submittedAt)})` : ""}</td>
+                <td className="py-2 text-step--1">{r.submittedAt ? `${formatDate(r.submittedAt)} (${waitingFor(r.submittedAt)})` : ""}</td>
               </tr>
             ))}
           </tbody>
