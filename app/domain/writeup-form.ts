@@ -25,15 +25,19 @@ export const partRowSchema = z.object({
   note: z.string().trim().max(200, { message: "Use at most 200 characters." }).optional(),
 });
 
-export function writeupFormSchema(options: { systems: readonly string[]; zones: readonly string[]; weightUnit: "lb" | "kg" }) {
+/**
+ * `draft: true` is the schema of "Save draft": a title is enough, so that an owner can start a
+ * write-up and come back to it; summary, body and systems are asked for when it is sent for review.
+ */
+export function writeupFormSchema(options: { systems: readonly string[]; zones: readonly string[]; weightUnit: "lb" | "kg"; draft?: boolean }) {
+  const summary = z.string({ error: "Sum it up in a sentence or two." }).trim().max(SUMMARY_MAX, { message: `Use at most ${SUMMARY_MAX} characters.` });
+  const body = z.string({ error: "Write the body of the write-up." }).max(BODY_MAX, { message: `The body is too long (at most ${BODY_MAX.toLocaleString("en-US")} characters).` });
+  const systems = z.array(z.string()).refine((list) => list.every((s) => options.systems.includes(s)), { message: "Choose systems from the list." });
   return z.object({
     title: z.string({ error: "Give the write-up a title." }).trim().min(5, { message: "Use at least 5 characters for the title." }).max(TITLE_MAX, { message: `Use at most ${TITLE_MAX} characters.` }),
-    summary: z.string({ error: "Sum it up in a sentence or two." }).trim().min(10, { message: "Sum it up in at least 10 characters." }).max(SUMMARY_MAX, { message: `Use at most ${SUMMARY_MAX} characters.` }),
-    body: z.string({ error: "Write the body of the write-up." }).max(BODY_MAX, { message: `The body is too long (at most ${BODY_MAX.toLocaleString("en-US")} characters).` }),
-    systems: z
-      .array(z.string())
-      .min(1, { message: "Choose at least one boat system." })
-      .refine((list) => list.every((s) => options.systems.includes(s)), { message: "Choose systems from the list." }),
+    summary: options.draft ? summary.default("") : summary.min(10, { message: "Sum it up in at least 10 characters." }),
+    body: options.draft ? body.default("") : body,
+    systems: options.draft ? systems.default([]) : systems.refine((list) => list.length > 0, { message: "Choose at least one boat system." }),
     zones: z
       .array(z.string())
       .default([])

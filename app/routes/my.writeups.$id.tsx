@@ -109,7 +109,10 @@ export async function action({ request, params }: Route.ActionArgs) {
       return redirectWithNotice(request, "/my/writeups", "The write-up is withdrawn.");
     }
     const choices = await listSystemAndZoneChoices(db);
-    const schema = writeupFormSchema({ systems: choices.systems.map((x) => x.slug), zones: choices.zones.map((x) => x.slug), weightUnit: weightUnitOf(user.units) });
+    // A draft needs only its title; everything else is asked for when it is sent for review.
+    const schema = writeupFormSchema({
+      systems: choices.systems.map((x) => x.slug), zones: choices.zones.map((x) => x.slug), weightUnit: weightUnitOf(user.units), draft: intent !== "submit",
+    });
     const submission = parseWithZod(formData, { schema });
     if (submission.status !== "success") return data({ result: submission.reply() }, { status: 400 });
     const boats = await listBoatsOf(db, user.id);
@@ -168,14 +171,18 @@ export default function WriteupEditor({ loaderData, actionData }: Route.Componen
   const [restored, setRestored] = useState<{ value: EditorValue; savedAt: string } | null>(null);
   const [formKey, setFormKey] = useState(0);
   const [tab, setTab] = useState<"write" | "preview">("write");
-  const schema = writeupFormSchema({ systems: choices.systems.map((x) => x.slug), zones: choices.zones.map((x) => x.slug), weightUnit });
+  const schemaOptions = { systems: choices.systems.map((x) => x.slug), zones: choices.zones.map((x) => x.slug), weightUnit };
+  const schema = writeupFormSchema(schemaOptions);
+  const draftSchema = writeupFormSchema({ ...schemaOptions, draft: true });
   const lastResult = actionData && "result" in actionData ? actionData.result : undefined;
   const [form, fields] = useForm({
     id: `writeup-${id}-${formKey}`,
     lastResult: formKey === 0 ? lastResult : undefined,
     defaultValue: restored?.value ?? defaultValue,
-    constraint: getZodConstraint(schema),
-    onValidate: ({ formData }) => parseWithZod(formData, { schema }),
+    // The browser's own checks (before the script runs) only ask what a draft needs.
+    constraint: getZodConstraint(draftSchema),
+    // "Save draft" is checked as a draft; "Send for review", and a field left while typing, in full.
+    onValidate: ({ formData }) => parseWithZod(formData, { schema: formData.get("intent") === "save" ? draftSchema : schema }),
     shouldValidate: "onBlur",
     shouldRevalidate: "onInput",
   });

@@ -117,4 +117,18 @@ describe("typed text survives", () => {
     await page.getByRole("heading", { level: 1, name: "Edit your write-up" }).waitFor();
     await page.getByText("Draft saved.").waitFor();
   });
+
+  it("a draft with only its title is saved; sending it for review asks for the rest beside the fields", async () => {
+    await page.goto(`${BASE_URL}/my/writeups/new`);
+    await editorReady("A new write-up");
+    await page.getByLabel("Title").fill(`${TITLE}, started`);
+    await page.getByRole("button", { name: "Save draft" }).click();
+    await page.getByRole("heading", { level: 1, name: "Edit your write-up" }).waitFor();
+    await page.getByText("Draft saved.").waitFor();
+    await page.waitForSelector('form[id^="writeup-"][novalidate]', { state: "attached" });
+    await page.getByRole("button", { name: "Send for review" }).click();
+    await page.getByText("Sum it up in a sentence or two.").waitFor();
+    await page.getByText("Choose at least one boat system.").waitFor();
+    expect(await page.getByLabel("Title").inputValue()).toBe(`${TITLE}, started`);
+  });
 });

@@ -45,6 +45,19 @@ describe("the editor's form", () => {
     const paths = r.error!.issues.map((i) => i.path.join("."));
     expect(paths).toEqual(expect.arrayContaining(["title", "summary", "systems", "appliesTo", "parts.0.name", "parts.0.quantity", "parts.0.weight"]));
   });
+  it("saves a draft with only its title, and asks for the rest when it is sent for review", () => {
+    const draft = writeupFormSchema({ systems: ["electrical"], zones: ["bilge"], weightUnit: "lb", draft: true });
+    const onlyTitle = { title: "Second battery in the port cockpit locker", appliesTo: "all" };
+    const saved = draft.safeParse(onlyTitle);
+    expect(saved.success).toBe(true);
+    expect(saved.data).toMatchObject({ summary: "", body: "", systems: [] });
+    // A draft still needs a title, and nothing too long or outside the lists.
+    expect(draft.safeParse({ ...onlyTitle, title: "" }).success).toBe(false);
+    expect(draft.safeParse({ ...onlyTitle, systems: ["plumbing"] }).success).toBe(false);
+    const sent = schema.safeParse(onlyTitle);
+    expect(sent.success).toBe(false);
+    expect(sent.error!.issues.map((i) => i.path.join("."))).toEqual(expect.arrayContaining(["summary", "systems"]));
+  });
   it("makes addresses from titles", () => {
     expect(slugify("Group 27 battery, moved under the settee!")).toBe("group-27-battery-moved-under-the-settee");
     expect(slugify("Crème brûlée locker")).toBe("creme-brulee-locker");
