@@ -238,6 +238,9 @@ function hitsSql(words: boolean, list: Branch[], fitIds: number[] | null): SQL {
                       ${sql.join(counts.map((n) => sql`${n} > ${cap}`), sql` or `)} as capped)`;
 }
 
+/** How near (pg_trgm similarity) a word of the vocabulary must be to a word typed to be suggested for it. */
+const SUGGESTION_SIMILARITY = 0.4;
+
 /** How many rows of the write-ups table a search with words reads before it turns to the index. */
 const PROBE_ROWS = 1000;
 
@@ -470,7 +473,9 @@ export async function didYouMean(
   const r = await db.execute<{ word: string; better: string | null }>(sql`
     select q.word,
            (select v.word from search_vocabulary v
-             where v.word % q.word and v.word <> q.word
+             -- pg_trgm's % is similarity 0.3 or more; a typo of a word is nearer than that
+             -- ("baterry"/"battery" 0.45), a different word of the same start is not ("relocate"/"related" 0.31).
+             where v.word % q.word and v.word <> q.word and similarity(v.word, q.word) >= ${SUGGESTION_SIMILARITY}
              order by similarity(v.word, q.word) desc, v.documents desc, v.word
              limit 1) as better
       from unnest(${arrayLiteral(list)}::text[]) as q(word)

@@ -167,15 +167,17 @@ type ResultsData = Extract<Route.ComponentProps["loaderData"], { state: "results
 function Results({ d, params }: { d: ResultsData; params: URLSearchParams }) {
   const { answer, facets, active } = d;
   const pages = pageCount(answer.total);
-  // Each kind's results together, the kinds in the order of their best result on this page.
+  // Each kind's results together: the write-ups (the known fixes) first, then the other kinds in
+  // the order of their best result on this page.
   const byKind = SEARCH_KINDS.map((k) => ({ kind: k, results: answer.results.filter((r) => r.type === k) }))
     .filter((g) => g.results.length)
-    .sort((a, b) => answer.results.indexOf(a.results[0]) - answer.results.indexOf(b.results[0]));
+    .sort((a, b) => Number(b.kind === "writeup") - Number(a.kind === "writeup") || answer.results.indexOf(a.results[0]) - answer.results.indexOf(b.results[0]));
   const kindCount = (k: SearchKind) => facets.kinds.find((x) => x.value === k)?.count ?? 0;
   const first = (d.page - 1) * PAGE_SIZE + 1;
   return (
+    // The results come first in the page (and on a phone's one column); from md up, the filters
+    // stand in the left column.
     <div className="mt-6 grid gap-8 md:grid-cols-[15rem_1fr]">
-      <FacetPanel facets={facets} active={active} params={params} />
       <div className="min-w-0">
         <ActiveFilters active={active} params={params} words={d.words} />
         <div aria-live="polite">
@@ -224,6 +226,7 @@ function Results({ d, params }: { d: ResultsData; params: URLSearchParams }) {
         ))}
         {pages > 1 && <Pager page={d.page} pages={pages} params={params} />}
       </div>
+      <FacetPanel facets={facets} active={active} params={params} />
     </div>
   );
 }
@@ -291,7 +294,7 @@ function Pager({ page, pages, params }: { page: number; pages: number; params: U
 
 function FacetPanel({ facets, active, params }: { facets: Facets; active: ResultsData["active"]; params: URLSearchParams }) {
   return (
-    <aside aria-label="Narrow the results" className="text-step--1">
+    <aside aria-label="Narrow the results" className="text-step--1 md:order-first">
       <h2 className="text-step-0 font-semibold text-deep-900">Narrow the results</h2>
       {!facets.counted && (
         <p className="mt-1 text-ink-soft">Too many matches to count for each choice; choose one to narrow.</p>

@@ -313,6 +313,9 @@ describe("GET /api/search", () => {
     expect((await api("q=lazzarette%20shelf")).body.suggestion).toBe("lazarette shelf");
     // A word the texts use is never "corrected".
     expect((await api("q=battery")).body.suggestion).toBeNull();
+    // A correctly spelled word that no write-up uses is not "corrected" into another word that
+    // merely starts the same way (pg_trgm similarity of relocate/related: 4 shared trigrams of 13, 0.31).
+    expect((await api("q=relocate%20battery")).body.suggestion).toBeNull();
   });
 
   it("loosens a query none of whose results has all the words, and says so", async () => {
