@@ -1,7 +1,11 @@
 import { Link } from "react-router";
 import type { Caution } from "~/domain/cautions";
 
-export function CautionList({ cautions }: { cautions: Caution[] }) {
+/**
+ * `about`: what the cautions stand beside, for the closing line: a member's write-up ("account",
+ * the default) or one of the product's own calculations ("figures").
+ */
+export function CautionList({ cautions, about = "account" }: { cautions: Caution[]; about?: "account" | "figures" }) {
   if (!cautions.length) return null;
   return (
     <aside aria-labelledby="cautions-heading" className="rounded-lg border-l-4 border-bootstripe-600 bg-bootstripe-50 p-5">
@@ -15,7 +19,10 @@ export function CautionList({ cautions }: { cautions: Caution[] }) {
         ))}
       </ul>
       <p className="mt-4 text-step--1">
-        This is one owner's account, not professional advice. <Link to="/safety">Read how to use it safely</Link>.
+        {about === "account"
+          ? "This is one owner's account, not professional advice."
+          : "These figures are estimates from the measurements members entered, not professional advice."}{" "}
+        <Link to="/safety">Read how to use it safely</Link>.
       </p>
     </aside>
   );

@@ -468,7 +468,7 @@ export default function BoatPage({ loaderData, actionData }: Route.ComponentProp
       </Section>
 
       <div className="space-y-3">
-        <CautionList cautions={[CAUTIONS.stability, CAUTIONS.battery, CAUTIONS.wiring]} />
+        <CautionList cautions={[CAUTIONS.stability, CAUTIONS.battery, CAUTIONS.wiring]} about="figures" />
         <p className="text-step--1 text-ink-soft">
           Moving a battery? <Link to={`/tools/cable?unit=${unit}`}>Size the cable for its new run</Link>, or try the{" "}
           <Link to={`/tools/heel?unit=${unit}`}>heel calculator</Link> on its own.

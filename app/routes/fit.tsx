@@ -135,9 +135,17 @@ export default function FitPage({ loaderData }: Route.ComponentProps) {
   const timer = useRef<ReturnType<typeof setTimeout>>(undefined);
 
   // A navigation (the unit, the Show button, a link) brings a new form from the loader.
+  const shown = useRef(false);
   useEffect(() => {
     setForm(initial);
     setLive({ problem: null, fetched: false });
+    // After "Show the spaces", the answer is brought into view (on a phone it is below the form).
+    if (shown.current) {
+      shown.current = false;
+      const heading = document.getElementById("results-heading");
+      heading?.scrollIntoView({ block: "start" });
+      heading?.focus({ preventScroll: true });
+    }
   }, [initial]);
   useEffect(() => () => clearTimeout(timer.current), []);
 
@@ -214,7 +222,7 @@ export default function FitPage({ loaderData }: Route.ComponentProps) {
         </p>
       </header>
 
-      <Form method="get" action="/fit" className="space-y-5 rounded-lg bg-cloth-100 p-4 sm:p-6" aria-label="The item to fit">
+      <Form method="get" action="/fit" className="space-y-5 rounded-lg bg-cloth-100 p-4 sm:p-6" aria-label="The item to fit" onSubmit={() => { shown.current = true; }}>
         <input type="hidden" name="unit" value={unit} />
         <div className="flex flex-wrap items-end justify-between gap-4">
           <div className="min-w-0 flex-1 basis-64">
@@ -272,7 +280,7 @@ export default function FitPage({ loaderData }: Route.ComponentProps) {
       </Form>
 
       <section aria-labelledby="results-heading" className="space-y-4">
-        <h2 id="results-heading" className="text-step-2 font-semibold">Where it fits</h2>
+        <h2 id="results-heading" tabIndex={-1} className="scroll-mt-4 text-step-2 font-semibold focus:outline-none">Where it fits</h2>
         <div aria-live="polite" aria-busy={busy} className="space-y-1">
           {!complete(form) ? (
             <p className="text-ink-soft">Pick an item or type its three sizes.</p>
@@ -300,7 +308,7 @@ export default function FitPage({ loaderData }: Route.ComponentProps) {
             </ol>
           </>
         )}
-        <CautionList cautions={cautions} />
+        <CautionList cautions={cautions} about="figures" />
       </section>
     </div>
   );

@@ -399,7 +399,7 @@ export default function SpacePage({ loaderData, actionData }: Route.ComponentPro
         {notFitting.length > 0 && (
           <p className="text-step--1 text-ink-soft">Too big for this space: {notFitting.map((i) => i.name).join("; ")}.</p>
         )}
-        <CautionList cautions={loaderData.cautions} />
+        <CautionList cautions={loaderData.cautions} about="figures" />
       </section>
 
       {space.writeups.length > 0 && (

@@ -139,6 +139,23 @@ describe("a new owner looking for room for a group 31 battery", () => {
       .toEqual(onHull61.map((s) => s.name).sort());
   });
 
+  it("on a phone, 'Show the spaces' brings the answer into view", async () => {
+    const phone = await browser.newPage({ viewport: { width: 390, height: 844 } });
+    await phone.goto(`${BASE_URL}/fit`);
+    await phone.waitForSelector("form[aria-label='The item to fit']");
+    await phone.waitForFunction(() => Boolean((window as { __reactRouterRouteModules?: unknown }).__reactRouterRouteModules));
+    await phone.getByLabel("From the catalogue").selectOption({ label: "Battery, BCI group 31" });
+    await phone.getByRole("button", { name: "Show the spaces" }).click();
+    await phone.waitForURL(/item=bci-group-31/);
+    const heading = phone.getByRole("heading", { level: 2, name: "Where it fits" });
+    await expect.poll(async () => {
+      const box = await heading.boundingBox();
+      return box !== null && box.y >= 0 && box.y < 844;
+    }).toBe(true);
+    await phone.screenshot({ path: screenshotPath("fit-phone-answer"), fullPage: false });
+    await phone.close();
+  });
+
   it("logged no errors in the browser", () => {
     expect(errors).toEqual([]);
   });
