@@ -2,9 +2,12 @@
 // one of their registered hulls (or take it back). Sent to /api/writeups/:slug/done-too with a
 // fetcher; the same forms work as plain HTML forms before the page's script has loaded.
 import { Link, useFetcher } from "react-router";
+import { describeHullRange, type HullRange, rangeIncludes } from "~/domain/hulls";
 import { buttonClass, FieldError, inputClass, quietButtonClass } from "~/components/ui/form-basics";
 
 export type DoneTooView = {
+  /** The hulls the write-up was written for. */
+  appliesTo: HullRange;
   count: number;
   hulls: { hullNumber: number; boatName: string | null; isAuthors: boolean }[];
   /** The reader's registered boats (null: not signed in). */
@@ -48,21 +51,30 @@ export function DoneToo({ slug, view }: { slug: string; view: DoneTooView }) {
             {" "}and it can be counted here.
           </p>
         ) : (
-          <MyBoats slug={slug} mine={mine} />
+          <MyBoats slug={slug} mine={mine} appliesTo={view.appliesTo} />
         )}
       </div>
     </section>
   );
 }
 
-function MyBoats({ slug, mine }: { slug: string; mine: NonNullable<DoneTooView["mine"]> }) {
+function MyBoats({ slug, mine, appliesTo }: { slug: string; mine: NonNullable<DoneTooView["mine"]>; appliesTo: HullRange }) {
   const open = mine.filter((b) => b.state === "open");
+  // A change can be made on a hull it was not written for; the owner is told, and may still count it.
+  const elsewhere = open.filter((b) => !rangeIncludes(appliesTo, b.hullNumber));
   const counted = mine.filter((b) => b.state === "counted");
   const authors = mine.filter((b) => b.state === "authors");
   return (
     <div className="space-y-3">
       {authors.map((b) => <p key={b.hullNumber} className="text-ink-soft">{boatLabel(b.hullNumber, b.name)} is the boat this write-up was done on.</p>)}
       {counted.map((b) => <TakeBack key={b.hullNumber} slug={slug} boat={b} />)}
+      {elsewhere.length > 0 && (
+        <p className="text-ink-soft" data-testid="done-too-other-hulls">
+          {`This write-up was written for ${describeHullRange(appliesTo).replace(/^H/, "h")}; ${
+            elsewhere.length === 1 ? `hull ${elsewhere[0].hullNumber} is not among them` : `hulls ${elsewhere.map((b) => b.hullNumber).join(", ")} are not among them`
+          }. Count it only if you made the same change on it.`}
+        </p>
+      )}
       {open.length > 0 && <RecordForm slug={slug} open={open} />}
     </div>
   );

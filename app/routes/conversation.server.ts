@@ -4,6 +4,7 @@ import { createCookie, data, redirect } from "react-router";
 import type { CommentDraft, CommentView } from "~/components/comments";
 import type { DoneTooView } from "~/components/done-too";
 import { db } from "~/db/index.server";
+import type { HullRange } from "~/domain/hulls";
 import { can } from "~/domain/permissions";
 import { findPublishedWriteupRef, listComments } from "~/models/comments.server";
 import { doneTooSummary } from "~/models/done-too.server";
@@ -103,7 +104,7 @@ async function takeDraft(request: Request, slug: string): Promise<{ draft: Comme
 }
 
 /** Everything the write-up page shows below the body, for the reader who asks. */
-export async function loadConversation(request: Request, writeup: WriteupRef) {
+export async function loadConversation(request: Request, writeup: WriteupRef, appliesTo: HullRange) {
   const user = await getUser(request);
   const [comments, doneToo, boats, { notice, headers: noticeHeaders }, { draft, setCookie }] = await Promise.all([
     listComments(db, writeup.id),
@@ -123,6 +124,7 @@ export async function loadConversation(request: Request, writeup: WriteupRef) {
     canDelete: user !== null && (c.userId === user.id || moderator),
   }));
   const doneTooView: DoneTooView = {
+    appliesTo,
     count: doneToo.count,
     hulls: doneToo.hulls.map(({ hullNumber, boatName, isAuthors }) => ({ hullNumber, boatName, isAuthors })),
     mine: boats

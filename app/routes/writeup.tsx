@@ -37,7 +37,7 @@ export async function loader({ params, request }: Route.LoaderArgs) {
   const systems = writeup.systems.map((sys) => sys.slug);
   // Until readers choose their units (accounts), lengths and weights are shown in inches and pounds.
   const units = { length: "in" as const, weight: "lb" as const };
-  const { conversation, headers } = await loadConversation(request, { id: writeup.id, slug: writeup.slug, authorHull: writeup.hullNumber });
+  const { conversation, headers } = await loadConversation(request, { id: writeup.id, slug: writeup.slug, authorHull: writeup.hullNumber }, { from: writeup.hullFrom, to: writeup.hullTo });
   return data({
     writeup: {
       ...rest,

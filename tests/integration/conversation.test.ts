@@ -238,6 +238,21 @@ describe("comments", () => {
 });
 
 describe("done on my boat too", () => {
+  it("tells an owner whose hull the write-up was not written for, and still lets them count it", async () => {
+    // The write-up applies to hulls 120-298 (its seed file); Lena's boat is hull 318 (members.yaml).
+    const page = await pageFor(LENA);
+    expect(page.conversation.doneToo.appliesTo).toEqual({ from: 120, to: 298 });
+    expect(page.conversation.doneToo.mine).toEqual([expect.objectContaining({ hullNumber: 318, state: "open" })]);
+    const { DoneToo } = await import("~/components/done-too");
+    const Stub = createRoutesStub([{ path: "/writeups/:slug", Component: () => createElement(DoneToo, { slug: SLUG, view: page.conversation.doneToo }) }]);
+    const html = renderToString(createElement(Stub, { initialEntries: [`/writeups/${SLUG}`] }));
+    expect(html).toContain("This write-up was written for hulls 120–298; hull 318 is not among them.");
+    expect(html).toContain("Count my boat too");
+    // The author's own hull is within the range: no such note.
+    const author = renderToString(createElement(createRoutesStub([{ path: "/writeups/:slug", Component: () => createElement(DoneToo, { slug: SLUG, view: { ...page.conversation.doneToo, mine: [{ hullNumber: 200, name: null, state: "open" }] } }) }]), { initialEntries: [`/writeups/${SLUG}`] }));
+    expect(author).not.toContain("is not among them");
+  });
+
   it("counts the author's own boat to begin with", async () => {
     const page = await pageFor();
     expect(page.conversation.doneToo.count).toBe(1);
