@@ -10,7 +10,7 @@ export const CAUTIONS: Record<string, Caution> = {
     title: "Batteries",
     text:
       "Charging lead-acid batteries give off hydrogen, which burns at about 4 % in air: ventilate the space and keep flames and sparks away. " +
-      "Secure every battery so it cannot move more than 1 in when pulled with 90 lb or twice its weight; cover the terminals; never place a battery directly above or below a fuel tank. " +
+      "Secure every battery so it cannot move more than 1 in when pulled with 90 lb or twice its weight, whichever is less; cover the terminals; never place a battery directly above or below a fuel tank. " +
       "Disconnect the negative terminal before working on the wiring.",
     source: "33 CFR 183.420 and 183.445; 29 CFR 1910.178(g)",
   },
