@@ -11,18 +11,16 @@
 //
 // With DATABASE_URL set, the database is made on that server (the role needs CREATEDB);
 // otherwise a PostgreSQL cluster of its own is started in a temporary folder.
-import { randomBytes } from "node:crypto";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { sql } from "drizzle-orm";
 import { migrate } from "drizzle-orm/node-postgres/migrator";
-import pg from "pg";
 import sharp from "sharp";
 import { getDocumentProxy } from "unpdf";
 import { createDb } from "../app/db/client.server";
 import { renderMarkdown } from "../app/domain/markdown";
-import { argNumber, benchServer, figure, random } from "./lib/bench-kit";
+import { argNumber, benchDatabase, figure, random } from "./lib/bench-kit";
 import { seedDemo, splitFrontMatter } from "./seed-content";
 
 const WRITEUPS = argNumber("writeups", 2000);
@@ -157,15 +155,9 @@ async function descendantsCpu<T>(work: () => Promise<T>): Promise<{ result: T; c
 async function main() {
   // Rendered as the production server renders (React's production build).
   process.env.NODE_ENV = "production";
-  const { adminUrl, stop } = await benchServer();
-  const name = `bench_digest_${randomBytes(4).toString("hex")}`;
-  const admin = new pg.Client({ connectionString: adminUrl });
-  await admin.connect();
-  await admin.query(`create database "${name}"`);
-  const url = new URL(adminUrl);
-  url.pathname = `/${name}`;
-  process.env.DATABASE_URL = url.toString();
-  const { db, pool } = createDb(url.toString(), 4);
+  const database = await benchDatabase("bench_digest");
+  process.env.DATABASE_URL = database.url;
+  const { db, pool } = createDb(database.url, 4);
   // The app's modules, imported once DATABASE_URL points at the benchmark's database.
   const digests = await import("../app/models/digests.server");
   const print = await import("../app/services/digest-print.server");
@@ -232,10 +224,7 @@ async function main() {
   } finally {
     await pdfService.closePdfBrowser();
     await pool.end();
-    await new Promise((r) => setTimeout(r, 200));
-    await admin.query(`drop database if exists "${name}" with (force)`);
-    await admin.end();
-    stop();
+    await database.finish();
   }
 }
 

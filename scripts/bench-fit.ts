@@ -10,18 +10,16 @@
 // upright with 1/2 in clear, with the fit search's planner settings.
 // With DATABASE_URL set, the throwaway database is made on that server (the role needs
 // CREATEDB); otherwise a PostgreSQL cluster of its own is started in a temporary folder.
-import { randomBytes } from "node:crypto";
 import os from "node:os";
 import path from "node:path";
 import { sql } from "drizzle-orm";
 import { migrate } from "drizzle-orm/node-postgres/migrator";
-import pg from "pg";
 import { createDb } from "../app/db/client.server";
 import { BCI_GROUPS } from "../app/domain/battery-groups";
 import type { Orientation } from "../app/domain/fit";
 import { DEFAULT_LIMIT } from "../app/domain/fit-search";
 import { endFitSearchPool, findFittingSpaces, type FitQuery } from "../app/models/spaces.server";
-import { argNumber, benchServer, figure, percentile, random } from "./lib/bench-kit";
+import { argNumber, benchDatabase, figure, percentile, random } from "./lib/bench-kit";
 
 const SPACES = argNumber("spaces", 50_000);
 const QUERIES = argNumber("queries", 1000);
@@ -90,14 +88,8 @@ function queries(n: number): FitQuery[] {
 }
 
 async function main() {
-  const { adminUrl, stop } = await benchServer();
-  const name = `bench_fit_${randomBytes(4).toString("hex")}`;
-  const admin = new pg.Client({ connectionString: adminUrl });
-  await admin.connect();
-  await admin.query(`create database "${name}"`);
-  const url = new URL(adminUrl);
-  url.pathname = `/${name}`;
-  const { db, pool } = createDb(url.toString(), 2);
+  const database = await benchDatabase("bench_fit");
+  const { db, pool } = createDb(database.url, 2);
   try {
     await migrate(db, { migrationsFolder: path.resolve(import.meta.dirname, "../drizzle") });
     const started = performance.now();
@@ -144,11 +136,7 @@ async function main() {
   } finally {
     await endFitSearchPool(db);
     await pool.end();
-    // Let the pool's connections close before the database goes.
-    await new Promise((r) => setTimeout(r, 200));
-    await admin.query(`drop database if exists "${name}" with (force)`);
-    await admin.end();
-    stop();
+    await database.finish();
   }
 }
 

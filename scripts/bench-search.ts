@@ -26,7 +26,7 @@ import { createDb } from "../app/db/client.server";
 import { renderMarkdown } from "../app/domain/markdown";
 import { queryWords } from "../app/domain/search";
 import { splitFrontMatter } from "./seed-content";
-import { argNumber, benchServer, figure, percentile, random, type Target } from "./lib/bench-kit";
+import { argNumber, benchDatabase, figure, percentile, random, type Target } from "./lib/bench-kit";
 import { freePort } from "./lib/setup.mjs";
 
 const WRITEUPS = argNumber("writeups", 100_000);
@@ -374,14 +374,8 @@ async function main() {
     console.log(queries().join("\n"));
     return;
   }
-  const { adminUrl, stop } = await benchServer({ sharedBuffers: "1GB" });
-  const name = REUSE ?? `bench_search_${randomBytes(4).toString("hex")}`;
-  const admin = new pg.Client({ connectionString: adminUrl });
-  await admin.connect();
-  if (!REUSE) await admin.query(`create database "${name}"`);
-  const url = new URL(adminUrl);
-  url.pathname = `/${name}`;
-  const databaseUrl = url.toString();
+  const database = await benchDatabase("bench_search", { sharedBuffers: "1GB", reuse: REUSE, keep: KEEP });
+  const databaseUrl = database.url;
   // The app's modules read DATABASE_URL once, when first imported.
   process.env.DATABASE_URL = databaseUrl;
   const { db, pool } = createDb(databaseUrl, 4);
@@ -469,10 +463,7 @@ async function main() {
     http?.stop();
     await appPool?.end();
     await pool.end();
-    if (KEEP || REUSE) console.log(`[bench] the database is kept: ${databaseUrl}`);
-    else await admin.query(`drop database if exists "${name}" with (force)`);
-    await admin.end();
-    stop();
+    await database.finish();
   }
 }
 

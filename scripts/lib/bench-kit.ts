@@ -1,8 +1,10 @@
 // What every benchmark script shares: arguments, deterministic random numbers, percentiles, a
 // PostgreSQL server of its own, and the figure lines that `npm run bench` gathers into one report.
+import { randomBytes } from "node:crypto";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
+import pg from "pg";
 import { ensurePostgres, freePort, startCluster } from "./setup.mjs";
 
 /** `--name=value` from the command line, as a number. */
@@ -55,6 +57,36 @@ export async function benchServer(options: { sharedBuffers?: string } = {}): Pro
     stop: () => {
       cluster.stop();
       fs.rmSync(dir, { recursive: true, force: true });
+    },
+  };
+}
+
+/**
+ * A database of a benchmark's own on benchServer()'s server, named `<prefix>_<random>`: its URL,
+ * and `finish()`, which drops it (unless kept) and stops the server the benchmark started. Close
+ * the pools on it first. `reuse`: an existing database of that name, measured and kept.
+ */
+export async function benchDatabase(
+  prefix: string, options: { sharedBuffers?: string; reuse?: string | null; keep?: boolean } = {},
+): Promise<{ url: string; finish: () => Promise<void> }> {
+  const { adminUrl, stop } = await benchServer({ sharedBuffers: options.sharedBuffers });
+  const name = options.reuse ?? `${prefix}_${randomBytes(4).toString("hex")}`;
+  const admin = new pg.Client({ connectionString: adminUrl });
+  await admin.connect();
+  if (!options.reuse) await admin.query(`create database "${name}"`);
+  const url = new URL(adminUrl);
+  url.pathname = `/${name}`;
+  return {
+    url: url.toString(),
+    finish: async () => {
+      if (options.keep || options.reuse) console.log(`[bench] the database is kept: ${url}`);
+      else {
+        // Let the pools' connections close before the database goes.
+        await new Promise((r) => setTimeout(r, 200));
+        await admin.query(`drop database if exists "${name}" with (force)`);
+      }
+      await admin.end();
+      stop();
     },
   };
 }
