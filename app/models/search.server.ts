@@ -64,11 +64,14 @@ const headlineWindow = (text: SQL, starts: string[]) => {
     from (select x.t, greatest(1, coalesce(${first}, 1) - ${HEADLINE_LEAD}::int) as a
             from (select ${text} as t offset 0) x offset 0) y)`;
 // (OFFSET 0 keeps each subquery whole: flattened, PostgreSQL would read the text back from its
-// TOAST table and strip its markers once for every place that uses it, a dozen times a row.)
+// TOAST table once for every place that uses it, a dozen times a row.)
 };
 
 
-/** A document's text with the hit markers removed, so only the database's markers mark hits. */
+/**
+ * A document's text with the hit markers removed, so only the database's markers mark hits.
+ * Applied to the part shown only: translate() takes some 25 µs per kilobyte of text.
+ */
 const unmarked = (text: SQL) => sql`translate(${text}, ${HIT_START + HIT_END}, '')`;
 
 export type SearchResult = {
@@ -135,8 +138,8 @@ const textArray = (list: string[]) => sql`${arrayLiteral(list)}::text[]`;
 function branches(f: SearchFilters, fitSpaceIds: number[] | null): Branch[] {
   const ids = fitSpaceIds === null ? null : sql`${`{${fitSpaceIds.join(",")}}`}::int[]`;
   const w: SQL[] = [sql`w.status = 'published'`];
-  // System and zone are filter words of the write-up (writeups.search_filters, GIN-indexed), so
-  // PostgreSQL combines their index with the words' one instead of testing every match.
+  // System and zone are filter words of the write-up (writeups.search_filters), the second column
+  // of the words' GIN index, so only write-ups with both are read instead of every match.
   const tags = [...(f.system ? [`system:${f.system}`] : []), ...(f.zone ? [`zone:${f.zone}`] : [])];
   if (tags.length) w.push(sql`w.search_filters @> ${textArray(tags)}`);
   if (f.hull) w.push(sql`w.hull_from <= ${f.hull.to}::int and w.hull_to >= ${f.hull.from}::int`);
@@ -205,16 +208,23 @@ function hitsSql(words: boolean, list: Branch[], fitIds: number[] | null): SQL {
       sql`select ${t.alias}.id, ${t.dated} as dated, (${score})::float8 as raw, ${sql.raw(boosted ? "true" : "false")} as boosted
             from ${from} where ${where.length ? sql.join(where, sql` and `) : sql`true`}`;
     ctes.push(sql`${m} as materialized (${select(conditions)})`);
-    if (words && b.kind === "writeup") {
+    if (words && b.kind === "writeup" && b.conditions.length === 1) {
       // A word that many write-ups use: the GIN index must list every one of its matches before
       // the first is read (4 to 8 ms at 10,000 to 30,000 matches), while the first PROBE_ROWS rows
       // of the table, read in the same order as the index's matches, already hold MATCH_CAP + 1 of
       // them. So those rows are tried first; only when they hold too few is the index used. The
-      // matches read are the same either way.
-      ctes.push(sql`p_writeup as materialized (
-        ${select(conditions, sql.raw(`(select * from writeups limit ${PROBE_ROWS}) w`))} limit ${cap} + 1)`);
+      // matches read are the same either way. The first PROBE_FIRST rows say whether the rest are
+      // worth trying (at least PROBE_DENSE matches in them); a rarer word goes to the index at
+      // once. Not with a filter (system, zone, hull ...), which leaves too few matches in so few
+      // rows: the index has the filter words too.
+      const rows = (offset: number, limit: number) => sql.raw(`(select * from writeups offset ${offset} limit ${limit}) w`);
+      ctes.push(sql`p1_writeup as materialized (${select(conditions, rows(0, PROBE_FIRST))} limit ${cap} + 1)`);
+      ctes.push(sql`p2_writeup as materialized (
+        select * from (${select(conditions, rows(PROBE_FIRST, PROBE_ROWS - PROBE_FIRST))} limit ${cap} + 1) x
+         where (select count(*) from p1_writeup) between ${PROBE_DENSE} and ${cap})`);
+      ctes.push(sql`p_writeup as materialized (select * from p1_writeup union all select * from p2_writeup)`);
       ctes.push(sql`${c} as materialized (
-        select * from p_writeup where (select count(*) from p_writeup) > ${cap}
+        (select * from p_writeup where (select count(*) from p_writeup) > ${cap} limit ${cap} + 1)
         union all
         (select * from ${m} where (select count(*) from p_writeup) <= ${cap} limit ${cap} + 1))`);
     } else {
@@ -225,8 +235,11 @@ function hitsSql(words: boolean, list: Branch[], fitIds: number[] | null): SQL {
     if (words && b.kind === "writeup") {
       // When the matches are more than the cap: write-ups with the words in their title too
       // (read through the title index, and only then).
-      ctes.push(sql`t_writeup as materialized (
-        ${select([...conditions, sql`to_tsvector(${CONFIG}, w.title) @@ (select query from q)`])})`);
+      // (The titles are read in a subquery of their own, so that PostgreSQL cannot take the
+      // words' index for them instead: that lists every match and reads each to test its title.)
+      const titled = sql`(select * from writeups w
+                            where w.status = 'published' and to_tsvector(${CONFIG}, w.title) @@ (select query from q) offset 0) w`;
+      ctes.push(sql`t_writeup as materialized (${select(conditions, titled)})`);
       hits.push(sql`select 'writeup'::text, id, raw, boosted, dated
                       from (select * from t_writeup where (select count(*) from c_writeup) > ${cap} limit ${TITLE_CANDIDATES}) t
                      where t.id not in (select id from (select id from c_writeup limit ${cap}) c)`);
@@ -243,6 +256,9 @@ const SUGGESTION_SIMILARITY = 0.4;
 
 /** How many rows of the write-ups table a search with words reads before it turns to the index. */
 const PROBE_ROWS = 1000;
+/** ... of which the first PROBE_FIRST must hold PROBE_DENSE matches for the rest to be read (10 %). */
+const PROBE_FIRST = 250;
+const PROBE_DENSE = 25;
 
 const dialect = new PgDialect();
 
@@ -291,8 +307,8 @@ async function page(db: DbOrTx, words: string | null, f: SearchFilters, fitIds: 
   const starts = words === null ? [] : wordStarts(words);
   const headline = (text: SQL, fallback: SQL) =>
     words === null
-      ? sql`left(${unmarked(fallback)}, 280)`
-      : sql`ts_headline(${CONFIG}, ${headlineWindow(unmarked(text), starts)}, (select query from q), ${HEADLINE_OPTIONS})`;
+      ? unmarked(sql`left(${fallback}, 280)`)
+      : sql`ts_headline(${CONFIG}, ${unmarked(headlineWindow(text, starts))}, (select query from q), ${HEADLINE_OPTIONS})`;
   const analysis = words === null
     ? sql`select ''::text as parsed, ''::text as expanded, '{}'::text[] as synonyms`
     : sql`select p.parsed::text as parsed, e.query::text as expanded,

@@ -389,6 +389,30 @@ describe("a search that matches more than it reads (docs/decisions/0008)", () =>
     await t.db.execute(sql`delete from writeups where slug like 'filler-%' or slug like 'sedgewick-%'`);
   });
 
+  it("reads the same matches, in the same order, whether it finds them in the table's first rows or through the index", async () => {
+    // One job in five has the word: too few in the first PROBE_FIRST rows to stop there, enough
+    // to read on through PROBE_ROWS (app/models/search.server.ts). A filter that keeps every
+    // write-up (all hulls) sends the same words through the index instead.
+    const author = await authorId();
+    await t.db.execute(sql`
+      insert into writeups (slug, title, summary, body_text, status, author_id, published_at)
+      select 'marline-' || g, 'Job ' || g, 'A job.',
+             case when g % 5 = 0 then 'The marlinspike hitch held the fender.' else 'The fender was moved.' end,
+             'published', ${author}, '2024-01-01'
+        from generate_series(1, 1200) g`);
+    const [first] = (await t.db.execute<{ n: number }>(sql`
+      select count(*)::int as n from (select * from writeups limit 250) w
+       where w.status = 'published' and w.search @@ to_tsquery('english', 'marlinspike')`)).rows;
+    expect(first.n).toBeGreaterThanOrEqual(25);
+    expect(first.n).toBeLessThanOrEqual(MATCH_CAP);
+    const probed = (await api("q=marlinspike&limit=50")).body;
+    const indexed = (await api("q=marlinspike&limit=50&hull=1-612")).body;
+    expect(probed).toMatchObject({ total: MATCH_CAP, totalCapped: true });
+    expect(probed.results).toHaveLength(50);
+    expect(probed.results.map((r: any) => r.url)).toEqual(indexed.results.map((r: any) => r.url));
+    await t.db.execute(sql`delete from writeups where slug like 'marline-%'`);
+  });
+
   it("makes the snippet of a long write-up from around the first word found, far into its body", async () => {
     const author = await authorId();
     const filler = "The hull was sanded, faired and painted again before launch. ".repeat(60);
