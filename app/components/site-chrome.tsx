@@ -53,12 +53,10 @@ export function SiteHeader({ className, query, user }: { className: string; quer
           <Link to="/spaces" className="text-cloth-50 underline-offset-4 hover:underline">Spaces</Link>
           <Link to="/fit" className="text-cloth-50 underline-offset-4 hover:underline">Will it fit?</Link>
         </nav>
-        {user && (
-          <nav aria-label="Calculators" className="flex gap-4 text-step--1 font-medium">
-            <Link to="/tools/heel" className="text-cloth-50 underline-offset-4 hover:underline">Heel</Link>
-            <Link to="/tools/cable" className="text-cloth-50 underline-offset-4 hover:underline">Cable sizes</Link>
-          </nav>
-        )}
+        <nav aria-label="Calculators" className="flex gap-4 text-step--1 font-medium">
+          <Link to="/tools/heel" className="text-cloth-50 underline-offset-4 hover:underline">Heel</Link>
+          <Link to="/tools/cable" className="text-cloth-50 underline-offset-4 hover:underline">Cable sizes</Link>
+        </nav>
         <Form method="get" action="/search" role="search" className="ml-auto flex w-full max-w-sm gap-2 sm:w-auto">
           <SearchBox
             key={query}

@@ -11,7 +11,7 @@ import { can } from "~/domain/permissions";
 import { MM_PER_FOOT, type LengthUnit } from "~/domain/units";
 import { db } from "~/db/index.server";
 import { attachCalculation, EditingError, listWriteupsOpenForNumbers } from "~/models/writeup-editing.server";
-import { redirectWithNotice, requirePermission, requireUser } from "~/services/session.server";
+import { getUser, redirectWithNotice, requirePermission } from "~/services/session.server";
 import { readerUnit } from "./reader-unit.server";
 import { readForm } from "~/services/form-body.server";
 
@@ -29,7 +29,8 @@ export function meta() {
 }
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const user = await requireUser(request);
+  // Open to every reader, as the fit check is; only attaching the answer asks for a member.
+  const user = await getUser(request);
   const unit = await readerUnit(request, user);
   const q = new URL(request.url).searchParams;
   const values = queryObject(q, FIELDS);
@@ -51,8 +52,8 @@ export async function loader({ request }: Route.LoaderArgs) {
     } else errors = firstErrors(r.error);
   }
   // A member who writes can attach the answer to one of their write-ups (Numbers for readers).
-  const mine = input && can(user.roles, "writeup:write") ? await listWriteupsOpenForNumbers(db, user.id) : [];
-  return { unit, form, errors, input, mine };
+  const mine = input && user && can(user.roles, "writeup:write") ? await listWriteupsOpenForNumbers(db, user.id) : [];
+  return { unit, form, errors, input, mine, signedIn: Boolean(user), here: `/tools/cable?${q.toString()}` };
 }
 
 /** POST: attach the answer to a write-up of the member's own; the editor checks who may. */
@@ -76,7 +77,7 @@ export async function action({ request }: Route.ActionArgs) {
 }
 
 export default function CableTool({ loaderData, actionData }: Route.ComponentProps) {
-  const { unit, form, errors, input, mine } = loaderData;
+  const { unit, form, errors, input, mine, signedIn, here } = loaderData;
   const attachErrors: Record<string, string> = actionData && "attachErrors" in actionData ? actionData.attachErrors : {};
   const field = (name: "current" | "length" | "label", label: string, hint: string, inputMode?: "decimal") => (
     <div>
@@ -146,6 +147,11 @@ export default function CableTool({ loaderData, actionData }: Route.ComponentPro
         {input ? (
           <>
             <CableRunResult input={input} unit={unit} />
+            {!signedIn && (
+              <p className="text-step--1">
+                <Link to={`/sign-in?redirectTo=${encodeURIComponent(here)}`} className="font-medium">Sign in</Link> to attach this answer to a write-up of yours.
+              </p>
+            )}
             {mine.length > 0 && (
               <Form method="post" className="space-y-3 rounded-lg bg-cloth-100 p-4" aria-label="Attach to a write-up of yours">
                 <p className="font-medium">Attach this to a write-up of yours, so that readers see the numbers</p>

@@ -9,7 +9,6 @@ import { describeHeel, formatGm, formatMoment, weightUnitFor } from "~/domain/le
 import { calibrateGm, heelFromMoment, SMALL_ANGLE_LIMIT_DEG, STABILITY_CAUTIONS } from "~/domain/stability";
 import { formatLength, formatWeight, kgToPounds, mmToInches, MM_PER_FOOT } from "~/domain/units";
 import { getClassParticulars } from "~/models/boats.server";
-import { requireUser } from "~/services/session.server";
 import { readerUnit } from "./reader-unit.server";
 
 const FIELDS = ["find", "displacement", "weight", "distance", "side", "gm", "method", "heel", "deflection", "plumbLength"] as const;
@@ -23,8 +22,8 @@ type Answer =
   | { find: "gm"; gmMm: number; momentFtLb: number };
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const user = await requireUser(request);
-  const unit = await readerUnit(request, user);
+  // Open to every reader, as the fit check is.
+  const unit = await readerUnit(request);
   const units = unitsFor(unit);
   const particulars = await getClassParticulars(db);
   const q = new URL(request.url).searchParams;

@@ -91,6 +91,26 @@ describe("a new owner browsing", () => {
     expect(text).toContain("licensed or certified professional");
   });
 
+  it("sizes a cable run from the header's calculators without an account, and is asked to sign in only to attach it", async () => {
+    await page.goto(BASE_URL);
+    await page.getByRole("navigation", { name: "Calculators" }).getByRole("link", { name: "Cable sizes" }).click();
+    await page.waitForURL("**/tools/cable**");
+    await page.getByRole("heading", { level: 1, name: "Cable for a DC run" }).waitFor();
+    await page.getByLabel("Current").fill("30");
+    await page.getByLabel("Run length, one way").fill("11 ft");
+    await page.getByRole("button", { name: "Size the cable" }).click();
+    await page.waitForURL("**/tools/cable?**current=30**");
+    const answer = page.locator("section[aria-labelledby='cable-answer']");
+    await answer.getByRole("link", { name: "Sign in" }).waitFor();
+    // By hand: 30 A over 11 ft one way at 12 V with a 3 % drop: CM = 10.75 x 30 x 22 / 0.36 =
+    // 19,708 (the formula of ABYC E-11 as widely reproduced), so 6 AWG: 26,240 CM, while 8 AWG
+    // has 16,510 (NEC Chapter 9, Table 8).
+    await expect(answer.textContent()).resolves.toContain("6 AWG");
+    expect(await answer.getByRole("button", { name: "Attach to the write-up" }).count()).toBe(0);
+    const href = await answer.getByRole("link", { name: "Sign in" }).getAttribute("href");
+    expect(decodeURIComponent(href ?? "")).toContain("/tools/cable?");
+  });
+
   it("reports a healthy database on /api/health", async () => {
     const r = await fetch(`${BASE_URL}/api/health`);
     expect(r.status).toBe(200);

@@ -245,8 +245,13 @@ describe("the tools", () => {
     expect(d.input!.oneWayLengthMm).toBeCloseTo(11 * 304.8, 9); // a bare number is feet
     const bad = await settle(() => cableTool.loader(args(getRequest("/tools/cable?unit=in&current=lots&length=11", lena))));
     expect((bad.data as { errors: Record<string, string> }).errors.current).toMatch(/amps/);
-    const anon = await settle(() => cableTool.loader(args(getRequest("/tools/cable"))));
-    expect(anon.status).toBe(302);
+    // A visitor sizes a run too (as with the fit check); only attaching it asks for a member.
+    const anon = await settle(() => cableTool.loader(args(getRequest("/tools/cable?unit=in&current=30&length=11&voltage=12&drop=3&insulation=105"))));
+    const a = anon.data as { input: { oneWayLengthMm: number } | null; mine: unknown[]; signedIn: boolean };
+    expect({ status: anon.status, length: a.input?.oneWayLengthMm, mine: a.mine, signedIn: a.signedIn }).toEqual({ status: 200, length: 11 * 304.8, mine: [], signedIn: false });
+    const attach = await settle(() => cableTool.action(args(formRequest("/tools/cable", { writeupId: "1", current: "30", length: "11", voltage: "12", drop: "3", insulation: "105" }))));
+    expect(attach.status).toBe(302);
+    expect(attach.response?.headers.get("location")).toMatch(/^\/sign-in/);
   });
 
   it("the heel tool works out the heel from a GM, and a GM from a list", async () => {
