@@ -64,6 +64,12 @@ describe("the query builder against the PostgreSQL 15 documentation", () => {
     });
   }
 
+  it("takes 'relocate' and 'reposition' for 'move', as owners write either", async () => {
+    const expanded = (await analyseQuery(t.db, "relocate")).expanded;
+    expect(expanded.split(" | ").sort()).toEqual(["'move'", "'reloc'", "'reposit'"]);
+    expect((await analyseQuery(t.db, "moving")).expanded).toBe(expanded);
+  });
+
   it("adds the class's synonyms to a word, a phrase and an exclusion (query expansion from the table)", async () => {
     expect((await analyseQuery(t.db, "settee")).expanded).toBe("'sette' | 'bunk' | 'berth'");
     const phrase = await analyseQuery(t.db, '"stern locker" shelf');
@@ -165,7 +171,7 @@ describe("relevance on the demo class", () => {
     expect(await slugs("group 27 battery", { hull: { from: 147, to: 147, text: "147" } })).toContain("writeup:group-27-battery-under-starboard-settee");
   });
 
-  it("finds the battery relocation write-ups from five different phrasings", async () => {
+  it("finds the battery relocation write-ups from seven different phrasings", async () => {
     const battery = ["writeup:group-27-battery-under-starboard-settee", "writeup:correcting-starboard-list-second-battery-mk2"];
     for (const phrasing of [
       "battery box under the settee",
@@ -173,9 +179,19 @@ describe("relevance on the demo class", () => {
       "house battery relocated to the berth",
       "battery berth",
       "where to put a second battery",
+      // Neither write-up says "relocate" or "relocation": they say "moved" and "moving".
+      "relocate the battery",
+      "battery relocation",
     ]) {
-      const found = (await search(t.db, req(phrasing))).results.slice(0, 5).map((r) => `${r.type}:${r.slug}`);
+      const answer = await search(t.db, req(phrasing));
+      const found = answer.results.slice(0, 5).map((r) => `${r.type}:${r.slug}`);
       expect({ phrasing, found: battery.filter((b) => found.includes(b)).length > 0 }).toEqual({ phrasing, found: true });
+    }
+    // ... with every word they typed, not by dropping "relocate" or "relocation" as unknown.
+    for (const phrasing of ["relocate the battery", "battery relocation"]) {
+      const answer = await search(t.db, req(phrasing));
+      expect({ phrasing, matched: answer.matched, both: battery.every((b) => answer.results.some((r) => `${r.type}:${r.slug}` === b)) })
+        .toEqual({ phrasing, matched: "all", both: true });
     }
   });
 
