@@ -165,5 +165,10 @@ export const DIGEST_CSS = String.raw`
   .dg-large .dg-measures caption { display: none; }
   .dg-large .dg-measures th, .dg-large .dg-measures td { padding: 0.1rem 0.5rem 0.1rem 0; }
   .dg-large .dg-entry-foot { margin-top: 0.25rem; }
+  /* Its contents: a section longer than a page may break (kept whole, it would leave the cover
+     blank below "In this digest"); its name stays with its first titles, and no title is split. */
+  .dg-large .dg-contents li.dg-toc-section { break-inside: auto; }
+  .dg-large .dg-toc-name { display: block; break-after: avoid; }
+  .dg-large .dg-contents ul li { break-inside: avoid; }
 }
 `;

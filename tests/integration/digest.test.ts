@@ -411,6 +411,25 @@ describe("the PDF", () => {
       at = next;
     }
   }, 60_000);
+
+  it("starts the contents of a busy year on the cover, under 'In this digest', rather than on the next page", async () => {
+    const { buildDigestPdf } = await import("~/services/digest-print.server");
+    const { DIGEST_LARGE_ENTRIES } = await import("~/domain/digest");
+    const issued = (await digests.getIssued(t.db, YEAR, 1))!;
+    const snapshot = structuredClone(issued.snapshot);
+    // One section longer than a page of contents: the year's entries repeated under new titles.
+    const first = snapshot.sections[0];
+    const template = first.entries[0];
+    first.entries = Array.from({ length: DIGEST_LARGE_ENTRIES + 50 }, (_, i) => ({
+      ...template, writeupId: 100_000 + i, slug: `${template.slug}-${i}`, title: `Busy year entry ${i + 1}`, thumbnailKey: null,
+    }));
+    const pdf = await buildDigestPdf(snapshot, { className: "Brantwater 22", appUrl: "http://127.0.0.1:3000", fetchObject: async () => null });
+    const { text } = await extractText(await getDocumentProxy(pdf), { mergePages: false });
+    const cover = text[0].replace(/\s+/g, " ");
+    expect(cover).toContain("In this digest");
+    expect(cover).toContain("Busy year entry 1 ");
+    expect(cover).toContain("Busy year entry 2 ");
+  }, 60_000);
 });
 
 function expectedTitles(s: import("~/domain/digest").DigestSnapshot) {
