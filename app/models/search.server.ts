@@ -476,8 +476,8 @@ async function countOf(db: DbOrTx, words: string, filters: SearchFilters, fitIds
 }
 
 // ---------------------------------------------------------------------------------------------
-// "Did you mean": each word of the query that finds nothing anywhere (not even through its stem)
-// and that no published text uses is replaced by the nearest word of the vocabulary (pg_trgm
+// "Did you mean": each word of the query that finds nothing anywhere (not even through its stem),
+// that no published text uses and that is no word of the class's synonyms is replaced by the nearest word of the vocabulary (pg_trgm
 // similarity, the more used first), when the new query finds more than the old one (all words,
 // or else any of them).
 
@@ -497,6 +497,8 @@ export async function didYouMean(
       from unnest(${arrayLiteral(list)}::text[]) as q(word)
       cross join lateral (select plainto_tsquery(${CONFIG}, q.word) as lexemes) l
      where not exists (select 1 from search_vocabulary v where v.word = q.word)
+       -- A word of the class's synonyms ("bank" of "house bank") is a word of the trade, not a slip.
+       and not exists (select 1 from search_synonyms s where q.word = any(regexp_split_to_array(lower(s.term), '[^a-z0-9]+')))
        and numnode(l.lexemes) > 0
        and not exists (select 1 from writeups w where w.status = 'published' and w.search @@ l.lexemes)
        and not exists (select 1 from spaces sp where sp.search @@ l.lexemes)

@@ -70,6 +70,14 @@ describe("the query builder against the PostgreSQL 15 documentation", () => {
     expect((await analyseQuery(t.db, "moving")).expanded).toBe(expanded);
   });
 
+  it("finds the house battery write-ups by the trade's other name, 'house bank', and offers no other word for it", async () => {
+    const battery = ["writeup:group-27-battery-under-starboard-settee", "writeup:correcting-starboard-list-second-battery-mk2"];
+    const answer = await search(t.db, req("house bank"));
+    expect(answer.matched).toBe("all");
+    expect(answer.suggestion).toBeNull();
+    expect(battery.every((b) => answer.results.slice(0, 5).some((r) => `${r.type}:${r.slug}` === b))).toBe(true);
+  });
+
   it("adds the class's synonyms to a word, a phrase and an exclusion (query expansion from the table)", async () => {
     expect((await analyseQuery(t.db, "settee")).expanded).toBe("'sette' | 'bunk' | 'berth'");
     const phrase = await analyseQuery(t.db, '"stern locker" shelf');
