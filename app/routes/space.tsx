@@ -8,8 +8,9 @@ import { buttonClass, FieldError, FormMessage, inputClass, Notice } from "~/comp
 import { UnitToggle } from "~/components/unit-toggle";
 import { db } from "~/db/index.server";
 import { CAUTIONS } from "~/domain/cautions";
-import { fitItem, VERDICT_TEXT, type Verdict } from "~/domain/fit";
-import { describeBox, describePlacement } from "~/domain/fit-search";
+import { VERDICT_TEXT, type Verdict } from "~/domain/fit";
+import { fitHere } from "~/domain/fit-here";
+import { describeBox } from "~/domain/fit-search";
 import { describeHullRange, FIRST_HULL, LAST_HULL } from "~/domain/hulls";
 import { measurementDeleteSchema, measurementEditSchema, measurementSchema, METHOD_LABELS, type MeasureMethod } from "~/domain/items";
 import { can, canChangeMeasurement } from "~/domain/permissions";
@@ -48,19 +49,16 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const many = space.sections.length > 1;
   const partName = (position: number) => space.sections.find((sec) => sec.position === position)?.label ?? `part ${position + 1}`;
 
+  const fitSectionsHere = space.sections.map((sec, i) => ({ label: sec.label, box: fitSpace.sections[i] }));
   const itemFits = items.map((item) => {
-    const r = fitItem({ item: item.box, orientation: item.orientation, clearanceMm: 0, space: fitSpace });
-    const best = r.snuggestSection !== null ? r.sections[r.snuggestSection] : null;
+    const here = fitHere(item.box, item.orientation, fitSectionsHere, fitSpace.opening, unit);
     return {
       slug: item.slug,
       name: item.name,
       size: describeBox(item.box, unit),
       upright: item.orientation === "upright",
-      verdict: r.verdict,
-      how: best ? describePlacement(best.placement) : "",
-      room: best ? describeBox(best.leftoverMm, unit) : "",
-      inARow: best?.row?.count ?? 0,
-      section: best && many ? space.sections[best.section].label : "",
+      verdict: here.verdict,
+      text: here.text,
     };
   });
 
@@ -390,7 +388,7 @@ export default function SpacePage({ loaderData, actionData }: Route.ComponentPro
                   </span>
                 </p>
                 <p className="mt-1 text-ink-soft tabular-nums">{i.size}{i.upright ? ", upright only" : ""}</p>
-                <p className="mt-1">{i.how}{i.section ? `, in the ${i.section}` : ""}; room left {i.room}{i.inARow > 1 ? `; ${i.inARow} would fit in a row` : ""}.</p>
+                <p className="mt-1">{i.text}</p>
                 {i.verdict === "opening-too-small" && <p className="mt-1 font-medium">{VERDICT_TEXT["opening-too-small"]}</p>}
               </li>
             ))}
