@@ -18,7 +18,7 @@ export function variantOf(hull: number): Variant | undefined {
 
 export type HullRange = { from: number; to: number };
 
-/** "all", a variant key ("mk1") or a range "120-298" -> a range of hull numbers. */
+/** "all", a variant key ("mk1") or a range "120-298" (or "298-120", the same hulls) -> a range of hull numbers. */
 export function parseAppliesTo(value: string | number): HullRange | { error: string } {
   const text = String(value).trim().toLowerCase();
   if (text === "all") return { from: FIRST_HULL, to: LAST_HULL };
@@ -26,13 +26,14 @@ export function parseAppliesTo(value: string | number): HullRange | { error: str
   if (variant) return { from: variant.from, to: variant.to };
   const m = /^(\d+)\s*(?:-|to|–)\s*(\d+)$/.exec(text);
   if (m) {
-    const from = Number(m[1]);
-    const to = Number(m[2]);
-    if (from < FIRST_HULL || to > LAST_HULL) {
+    const a = Number(m[1]);
+    const b = Number(m[2]);
+    // Written the other way round ("298-120"), a range means the same hulls.
+    const [low, high] = a <= b ? [a, b] : [b, a];
+    if (low < FIRST_HULL || high > LAST_HULL) {
       return { error: `Hull numbers run from ${FIRST_HULL} to ${LAST_HULL}.` };
     }
-    if (from > to) return { error: "The first hull number must not be larger than the last." };
-    return { from, to };
+    return { from: low, to: high };
   }
   return { error: 'Say "all", a variant (Mk I, Mk II) or a hull-number range such as 120-298.' };
 }
@@ -56,4 +57,9 @@ export function rangeIncludes(range: HullRange, hull: number): boolean {
 export function hullBesideCredit(credit: string, hull: number | null): number | null {
   if (hull === null) return null;
   return new RegExp(`(^|\\D)${hull}(\\D|$)`).test(credit) ? null : hull;
+}
+
+/** The same words in the middle of a sentence: "applies to hull 318", "to hulls 120–298", "to Mk II (hulls 299–612)". */
+export function describeHullRangeInSentence(range: HullRange): string {
+  return describeHullRange(range).replace(/^(All hulls|Hulls?)\b/, (w) => w.toLowerCase());
 }

@@ -65,19 +65,24 @@ export function hasFilters(f: SearchFilters): boolean {
 // ---------------------------------------------------------------------------------------------
 // Parameters.
 
-/** "147" (one hull), "mk1" / "mk2" (a variant) or "120-298" (a range). */
+const HULL_CHOICES = `a hull number from ${FIRST_HULL} to ${LAST_HULL}, a variant (Mk I, Mk II) or a range such as 120-298`;
+
+/**
+ * "147" (one hull), "mk1" / "mk2" (a variant) or "120-298" (a range; "298-120" is the same
+ * hulls). The error is a sentence to show beside the field.
+ */
 export function parseHullFilter(raw: string): HullFilter | { error: string } {
   const text = raw.trim().toLowerCase().replace(/^hull\s*/, "").replace(/^#/, "");
   if (/^\d+$/.test(text)) {
     const n = Number(text);
-    if (n < FIRST_HULL || n > LAST_HULL) return { error: `a hull number from ${FIRST_HULL} to ${LAST_HULL}, a variant (mk1, mk2) or a range such as 120-298.` };
+    if (n < FIRST_HULL || n > LAST_HULL) return { error: `There is no hull ${n}: the class's hulls are numbered ${FIRST_HULL} to ${LAST_HULL}. Give ${HULL_CHOICES}.` };
     return { from: n, to: n, text };
   }
   const variant = VARIANTS.find((v) => v.key === text.replace(/\s+/g, "") || v.label.toLowerCase() === text);
   if (variant) return { from: variant.from, to: variant.to, text: variant.key };
-  if (text === "all") return { error: "leave it out to search every hull." };
+  if (text === "all") return { error: "Leave it empty to search every hull." };
   const r = parseAppliesTo(text);
-  if ("error" in r) return { error: `a hull number from ${FIRST_HULL} to ${LAST_HULL}, a variant (mk1, mk2) or a range such as 120-298.` };
+  if ("error" in r) return { error: `Give ${HULL_CHOICES}.` };
   return { ...r, text: `${r.from}-${r.to}` };
 }
 
@@ -105,7 +110,7 @@ const paramsSchema = z.object({
   measured: flag("measured").optional(),
   year: wholeNumber("year", 1900, 2999).optional(),
   type: z.string().trim().toLowerCase().refine((v) => v === "" || (SEARCH_KINDS as readonly string[]).includes(v), 'type: use "writeup", "space" or "item".').optional(),
-  fit: z.string().max(80, "fit: length x width x height such as 13 x 7 x 9 1/2.").optional(),
+  fit: z.string().optional(),
   unit: z.string().trim().toLowerCase().refine((v) => v === "" || v === "in" || v === "mm", 'unit: use "in" or "mm".').optional(),
   upright: flag("upright").optional(),
   limit: wholeNumber("limit", 1, API_MAX_LIMIT).optional(),
@@ -113,12 +118,19 @@ const paramsSchema = z.object({
   page: wholeNumber("page", 1, MAX_OFFSET / PAGE_SIZE).optional(),
 });
 
-export type ParsedSearch = { ok: true; request: SearchRequest; page: number; unit: LengthUnit; fitTyped: string };
+/** The page's filters that could not be read, each with the sentence to show beside its field. */
+export type LeftOut = { hull?: string; fit?: string };
+
+export type ParsedSearch = { ok: true; request: SearchRequest; page: number; unit: LengthUnit; fitTyped: string; leftOut: LeftOut };
+
+const FIT_TOO_LONG = "Give the length, width and height, such as 13 x 7 x 9 1/2.";
 
 /**
  * Reads the search's parameters. `mode: "api"` reads limit and offset; `"page"` reads page (10
  * a page). Empty values count as absent. Numbers typed among the words ("13 x 7 x 9.5 in
- * upright") become the dimension filter when no `fit` is given.
+ * upright") become the dimension filter when no `fit` is given. On the page (`"page"`), a hull or
+ * a size that cannot be read does not stop the search: it is left out, and `leftOut` says why
+ * (the API answers 400 instead).
  */
 export function parseSearchParams(params: URLSearchParams, mode: "api" | "page"): ParsedSearch | ParamProblem {
   const raw: Record<string, string> = {};
@@ -136,20 +148,29 @@ export function parseSearchParams(params: URLSearchParams, mode: "api" | "page")
   const p = parsed.data;
   const unit: LengthUnit = p.unit === "mm" ? "mm" : "in";
 
+  const leftOut: LeftOut = {};
   let hull: HullFilter | null = null;
   if (p.hull !== undefined) {
     const h = parseHullFilter(p.hull);
-    if ("error" in h) return { ok: false, parameter: "hull", message: `hull: ${h.error}` };
-    hull = h;
+    if ("error" in h) {
+      if (mode === "api") return { ok: false, parameter: "hull", message: `hull: ${h.error}` };
+      leftOut.hull = h.error;
+    } else {
+      hull = h;
+    }
   }
 
   let q = p.q;
   let fit: FitFilter | null = null;
   let fitTyped = "";
   if (p.fit !== undefined) {
-    const r = parseDimensions(p.fit, unit, 3);
-    if (!r.ok) return { ok: false, parameter: "fit", message: `fit: ${r.message}` };
-    fit = { box: { length: r.mm[0], width: r.mm[1], height: r.mm[2] }, orientation: p.upright ? "upright" : "any", unit, text: p.fit.trim() };
+    const r = p.fit.length > 80 ? { ok: false as const, message: FIT_TOO_LONG } : parseDimensions(p.fit, unit, 3);
+    if (!r.ok) {
+      if (mode === "api") return { ok: false, parameter: "fit", message: `fit: ${r.message}` };
+      leftOut.fit = r.message;
+    } else {
+      fit = { box: { length: r.mm[0], width: r.mm[1], height: r.mm[2] }, orientation: p.upright ? "upright" : "any", unit, text: p.fit.trim() };
+    }
     fitTyped = p.fit.trim();
   } else {
     const found = dimensionsInQuery(q, unit);
@@ -175,6 +196,7 @@ export function parseSearchParams(params: URLSearchParams, mode: "api" | "page")
     page,
     unit,
     fitTyped,
+    leftOut,
     request: {
       q,
       limit,
@@ -306,6 +328,26 @@ export function usesSyntax(q: string): boolean {
 /** The plain words of a query, lower case, in order (letters, digits and inner hyphens). */
 export function queryWords(q: string): string[] {
   return (q.toLowerCase().match(/[\p{L}\p{N}]+(?:['’-][\p{L}\p{N}]+)*/gu) ?? []).filter((w) => w !== "or");
+}
+
+/** Whether a query has anything to look for: a letter or a digit ("!!!" or "or" alone has not). */
+export function hasSearchWords(q: string): boolean {
+  return queryWords(q).length > 0;
+}
+
+/**
+ * The query as a heading shows it: in curly quotes ("battery box" -> “battery box”), or, when it
+ * has quotes of its own, as typed with those made curly (“house battery” once, not “"house battery"”).
+ */
+export function queryInQuotes(q: string): string {
+  const text = q.trim();
+  if (!/["“”]/.test(text)) return `“${text}”`;
+  let open = true;
+  return text.replace(/["“”]/g, (c) => {
+    const curly = c === '"' ? (open ? "“" : "”") : c;
+    open = curly === "”";
+    return curly;
+  });
 }
 
 /** The query with some words replaced (as they appear, whole words, any case), the rest as typed. */

@@ -2,13 +2,14 @@ import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/search";
 import { SearchBox } from "~/components/search-box";
 import { SnippetText } from "~/components/snippet";
-import { buttonClass, inputClass, quietButtonClass } from "~/components/ui/field";
+import { buttonClass, FieldError, inputClass, quietButtonClass } from "~/components/ui/field";
 import { formatDate, SystemChips } from "~/components/writeup-card";
 import { db } from "~/db/index.server";
 import { describeBox } from "~/domain/fit-search";
-import { CLASS_NAME, describeHullRange, hullBesideCredit } from "~/domain/hulls";
+import { CLASS_NAME, describeHullRange, describeHullRangeInSentence, hullBesideCredit } from "~/domain/hulls";
 import {
-  hasFilters, KIND_LABEL, MATCH_CAP, pageCount, PAGE_SIZE, parseSearchParams, SEARCH_KINDS, searchHref, type SearchKind,
+  hasFilters, hasSearchWords, KIND_LABEL, MATCH_CAP, pageCount, PAGE_SIZE, parseSearchParams, queryInQuotes, SEARCH_KINDS, searchHref,
+  type LeftOut, type SearchKind,
 } from "~/domain/search";
 import type { LengthUnit } from "~/domain/units";
 import { hullChoices, search, searchFacets, searchTaxonomy, type Facets, type SearchResult } from "~/models/search.server";
@@ -17,6 +18,8 @@ import { getUser } from "~/services/session.server";
 import { readerUnit } from "./reader-unit.server";
 
 type Problem = { parameter: string; message: string };
+/** Filters of the address that could not be read: the search runs without them, and says so beside each. */
+type LeftOutFilters = LeftOut & { system?: { typed: string; choices: { slug: string; name: string }[] }; zone?: { typed: string; choices: { slug: string; name: string }[] } };
 
 export async function loader({ request }: Route.LoaderArgs) {
   const url = new URL(request.url);
@@ -33,7 +36,8 @@ export async function loader({ request }: Route.LoaderArgs) {
   if (!parsed.ok) {
     return data({ ...base, state: "problem" as const, problem: { parameter: parsed.parameter, message: parsed.message } as Problem }, { status: 400 });
   }
-  const req = parsed.request;
+  const leftOut: LeftOutFilters = { ...parsed.leftOut };
+  const req = { ...parsed.request, filters: { ...parsed.request.filters } };
   // Sizes typed among the words go to the form's "must fit" field, so that searching again keeps them.
   const fit = req.filters.fit;
   if (fit && !url.searchParams.get("fit")) {
@@ -42,21 +46,44 @@ export async function loader({ request }: Route.LoaderArgs) {
     base.fitUpright = fit.orientation === "upright";
   }
   const taxonomy = await searchTaxonomy(db);
-  const unknown =
-    req.filters.system && !taxonomy.systems.some((x) => x.slug === req.filters.system) ? { parameter: "system", message: "There is no such system." }
-    : req.filters.zone && !taxonomy.zones.some((x) => x.slug === req.filters.zone) ? { parameter: "zone", message: "There is no such zone." }
-    : null;
-  if (unknown) return data({ ...base, state: "problem" as const, problem: unknown }, { status: 400 });
-  if (!req.q && !hasFilters(req.filters)) return { ...base, state: "start" as const };
+  // A system or zone that the class does not have is left out too, and the page lists those it has.
+  if (req.filters.system && !taxonomy.systems.some((x) => x.slug === req.filters.system)) {
+    leftOut.system = { typed: req.filters.system, choices: taxonomy.systems };
+    req.filters.system = null;
+  }
+  if (req.filters.zone && !taxonomy.zones.some((x) => x.slug === req.filters.zone)) {
+    leftOut.zone = { typed: req.filters.zone, choices: taxonomy.zones };
+    req.filters.zone = null;
+  }
+  const status = Object.keys(leftOut).length ? 400 : 200;
+  if (!req.q && !hasFilters(req.filters)) return data({ ...base, leftOut, state: "start" as const }, { status });
+  // Punctuation alone ("!!!") has nothing to look for: it must not list everything.
+  if (req.q && !hasSearchWords(req.q)) return data({ ...base, leftOut, state: "no-words" as const, filtered: hasFilters(req.filters) }, { status });
 
   const ownHulls = user ? await hullsOfUser(db, user.id) : [];
-  const answer = await search(db, req);
+  let answer = await search(db, req);
+  let words = req.q;
+  // A search that finds nothing, with a "did you mean" that finds something, shows what the
+  // suggestion finds; `typed=1` (the link "Search for ... instead") runs the words as typed.
+  let corrected: { typed: string } | null = null;
+  if (answer.total === 0 && answer.suggestion && url.searchParams.get("typed") !== "1") {
+    const instead = await search(db, { ...req, q: answer.suggestion });
+    if (instead.total > 0) {
+      corrected = { typed: req.q };
+      words = answer.suggestion;
+      answer = { ...instead, suggestion: null };
+    }
+  }
   const facets = await searchFacets(db, { ...req, q: answer.words }, hullChoices(ownHulls, req.filters.hull));
   const f = req.filters;
-  return {
+  const beyond = answer.total > 0 && parsed.page > pageCount(answer.total);
+  return data({
     ...base,
+    leftOut,
     state: "results" as const,
-    words: req.q,
+    words,
+    corrected,
+    beyond,
     page: parsed.page,
     filtered: hasFilters(req.filters),
     answer,
@@ -64,19 +91,19 @@ export async function loader({ request }: Route.LoaderArgs) {
     active: {
       system: f.system ? (taxonomy.systems.find((x) => x.slug === f.system)?.name ?? f.system) : null,
       zone: f.zone ? (taxonomy.zones.find((x) => x.slug === f.zone)?.name ?? f.zone) : null,
-      hull: f.hull ? { text: f.hull.text, label: describeHullRange(f.hull) } : null,
+      hull: f.hull ? { text: f.hull.text, label: describeHullRangeInSentence(f.hull) } : null,
       measured: f.measured,
       year: f.year,
       kind: f.kind,
       fit: f.fit ? { text: describeBox(f.fit.box, f.fit.unit), upright: f.fit.orientation === "upright", fromWords: !url.searchParams.get("fit") } : null,
     },
-  };
+  }, { status: beyond ? 404 : status });
 }
 
 export function meta({ loaderData }: Route.MetaArgs) {
   const q = loaderData?.q?.trim();
   return [
-    { title: q ? `“${q}” · Sistership search` : "Search · Sistership" },
+    { title: q ? `${queryInQuotes(q)} · Sistership search` : "Search · Sistership" },
     { name: "description", content: `Search the ${CLASS_NAME} owners' write-ups, measured spaces and catalogue items.` },
   ];
 }
@@ -86,18 +113,45 @@ export function meta({ loaderData }: Route.MetaArgs) {
 export default function SearchPage({ loaderData }: Route.ComponentProps) {
   const d = loaderData;
   const params = new URLSearchParams(d.params);
+  const leftOut: LeftOutFilters = "leftOut" in d ? d.leftOut : {};
+  // The links of the page leave out what could not be read (the form keeps it, to be corrected).
+  const links = new URLSearchParams(params);
+  for (const key of Object.keys(leftOut)) links.delete(key);
   return (
     <div>
       <h1 className="text-step-3 font-semibold leading-tight">
         {d.state !== "results"
           ? "Search the class's knowledge"
           : d.words
-            ? <>Write-ups, spaces and items matching “{d.words}”</>
+            ? <>Write-ups, spaces and items matching {queryInQuotes(d.words)}</>
             : d.active.fit
               ? <>What takes {d.active.fit.text}{d.active.fit.upright ? ", upright" : ""}</>
               : "Write-ups, spaces and items"}
       </h1>
-      <SearchForm params={params} q={d.state === "results" ? d.words : d.q} fit={{ text: d.fitText, unit: d.fitUnit, upright: d.fitUpright }} />
+      <SearchForm
+        params={params}
+        links={links}
+        q={d.state === "results" ? d.words : d.q}
+        fit={{ text: d.fitText, unit: d.fitUnit, upright: d.fitUpright }}
+        errors={{ hull: leftOut.hull, fit: leftOut.fit }}
+      />
+      {d.state !== "results" && (leftOut.system || leftOut.zone) && (
+        <div className="mt-6 max-w-2xl text-step--1">
+          <UnknownTag leftOut={leftOut} which="system" links={links} />
+          <UnknownTag leftOut={leftOut} which="zone" links={links} />
+        </div>
+      )}
+      {d.state === "no-words" && (
+        <div className="mt-6 max-w-2xl rounded-lg bg-cloth-100 p-5" id="search-no-words">
+          <p className="font-medium">
+            There are no words in {queryInQuotes(d.q)} to look for, only punctuation. Add a word that says what the job is about.
+          </p>
+          {d.filtered && (
+            <p className="mt-2"><Link to={searchHref(links, { q: null })}>Search with the filters alone</Link></p>
+          )}
+          <SyntaxHelp />
+        </div>
+      )}
       {d.state === "problem" && (
         <div role="alert" className="mt-6 max-w-2xl rounded-lg border-l-4 border-bootstripe-600 bg-bootstripe-50 p-4 text-bootstripe-800">
           <p className="font-medium">That search could not be read: {d.problem.message}</p>
@@ -107,16 +161,24 @@ export default function SearchPage({ loaderData }: Route.ComponentProps) {
         </div>
       )}
       {d.state === "start" && <SyntaxHelp intro />}
-      {d.state === "results" && <Results d={d} params={params} />}
+      {d.state === "results" && <Results d={d} params={links} leftOut={leftOut} />}
     </div>
   );
 }
 
-function SearchForm({ params, q, fit }: { params: URLSearchParams; q: string; fit: { text: string; unit: LengthUnit; upright: boolean } }) {
-  const keep = ["system", "zone", "measured", "year", "type"].filter((k) => params.get(k));
+function SearchForm({
+  params, links, q, fit, errors,
+}: {
+  params: URLSearchParams;
+  links: URLSearchParams;
+  q: string;
+  fit: { text: string; unit: LengthUnit; upright: boolean };
+  errors: { hull?: string; fit?: string };
+}) {
+  const keep = ["system", "zone", "measured", "year", "type"].filter((k) => links.get(k));
   return (
     <Form method="get" action="/search" role="search" aria-label="Search and narrow" className="mt-5 rounded-lg border border-cloth-200 bg-white/70 p-4">
-      {keep.map((k) => <input key={k} type="hidden" name={k} value={params.get(k) ?? ""} />)}
+      {keep.map((k) => <input key={k} type="hidden" name={k} value={links.get(k) ?? ""} />)}
       <div className="flex flex-wrap items-end gap-3">
         <div className="flex min-w-[16rem] flex-1 flex-col">
           <SearchBox
@@ -136,12 +198,24 @@ function SearchForm({ params, q, fit }: { params: URLSearchParams; q: string; fi
         <div className="mt-3 flex flex-wrap items-end gap-4">
           <div>
             <label htmlFor="search-hull" className="block font-medium text-ink">Applies to hull</label>
-            <input id="search-hull" name="hull" defaultValue={params.get("hull") ?? ""} placeholder="147, mk1 or 120-298" aria-describedby="search-hull-hint" className={`${inputClass} w-48`} />
+            <input
+              id="search-hull" name="hull" defaultValue={params.get("hull") ?? ""} placeholder="147, mk1 or 120-298"
+              aria-invalid={errors.hull ? true : undefined}
+              aria-describedby={errors.hull ? "search-hull-error search-hull-hint" : "search-hull-hint"}
+              className={`${inputClass} w-48`}
+            />
+            <FieldError id="search-hull-error" errors={errors.hull ? [errors.hull] : undefined} />
             <p id="search-hull-hint" className="mt-1 text-ink-soft">A hull number, Mk I / Mk II, or a range.</p>
           </div>
           <div>
             <label htmlFor="search-fit" className="block font-medium text-ink">Must fit (length × width × height)</label>
-            <input id="search-fit" name="fit" defaultValue={fit.text} placeholder="13 x 7 x 9 1/2" aria-describedby="search-fit-hint" className={`${inputClass} w-56`} />
+            <input
+              id="search-fit" name="fit" defaultValue={fit.text} placeholder="13 x 7 x 9 1/2"
+              aria-invalid={errors.fit ? true : undefined}
+              aria-describedby={errors.fit ? "search-fit-error search-fit-hint" : "search-fit-hint"}
+              className={`${inputClass} w-56`}
+            />
+            <FieldError id="search-fit-error" errors={errors.fit ? [errors.fit] : undefined} />
             <p id="search-fit-hint" className="mt-1 text-ink-soft">Spaces it fits, through their opening, and the write-ups that used them.</p>
           </div>
           <div>
@@ -164,7 +238,7 @@ function SearchForm({ params, q, fit }: { params: URLSearchParams; q: string; fi
 
 type ResultsData = Extract<Route.ComponentProps["loaderData"], { state: "results" }>;
 
-function Results({ d, params }: { d: ResultsData; params: URLSearchParams }) {
+function Results({ d, params, leftOut }: { d: ResultsData; params: URLSearchParams; leftOut: LeftOutFilters }) {
   const { answer, facets, active } = d;
   const pages = pageCount(answer.total);
   // Each kind's results together: the write-ups (the known fixes) first, then the other kinds in
@@ -181,11 +255,32 @@ function Results({ d, params }: { d: ResultsData; params: URLSearchParams }) {
       <div className="min-w-0">
         <ActiveFilters active={active} params={params} words={d.words} />
         <div aria-live="polite">
-          {answer.total > 0 ? (
-            <p className="text-ink-soft" id="search-summary">
-              {answer.capped ? `More than ${answer.total.toLocaleString("en-US")} results` : `${answer.total} ${answer.total === 1 ? "result" : "results"}`}
-              {pages > 1 ? `, ${first}–${Math.min(first + PAGE_SIZE - 1, answer.total)} shown (page ${d.page} of ${pages})` : ""}
-              {answer.matched !== "none" ? ", best matches first" : active.fit ? ", snuggest first" : ""}.
+          <LeftOutSentences leftOut={leftOut} />
+          {d.corrected && (
+            <p className="mb-2 font-medium" id="search-corrected">
+              Showing results for <em>{d.words}</em>. Search for{" "}
+              <Link to={searchHref(params, { q: d.corrected.typed, typed: "1" })} className="italic">{d.corrected.typed}</Link> instead.
+            </p>
+          )}
+          {d.beyond ? (
+            <div className="rounded-md bg-cloth-100 p-3" id="search-beyond">
+              <p className="font-medium">
+                There is no page {d.page}: these results have {pages} {pages === 1 ? "page" : "pages"}.
+              </p>
+              <p className="mt-2 flex flex-wrap gap-x-4 gap-y-1">
+                {pages > 1 && <Link to={searchHref(params, { page: String(pages) })}>Go to the last page ({pages})</Link>}
+                <Link to={searchHref(params, { page: null })}>Go to the first page</Link>
+              </p>
+            </div>
+          ) : answer.total > 0 ? (
+            <p className="flex flex-wrap items-baseline justify-between gap-x-4 gap-y-1 text-ink-soft">
+              <span id="search-summary">
+                {answer.capped ? `More than ${answer.total.toLocaleString("en-US")} results` : `${answer.total} ${answer.total === 1 ? "result" : "results"}`}
+                {pages > 1 ? `, ${first}–${Math.min(first + PAGE_SIZE - 1, answer.total)} shown (page ${d.page} of ${pages})` : ""}
+                {answer.matched !== "none" ? ", best matches first" : active.fit ? ", tightest fit first" : ""}.
+              </span>
+              {/* On a phone the filters come after the results: a way to them without scrolling past every result. */}
+              <a href="#narrow" className="font-medium md:hidden" id="search-jump-narrow">Narrow the results</a>
             </p>
           ) : null}
           {answer.capped && (
@@ -224,9 +319,9 @@ function Results({ d, params }: { d: ResultsData; params: URLSearchParams }) {
             </ol>
           </section>
         ))}
-        {pages > 1 && <Pager page={d.page} pages={pages} params={params} />}
+        {pages > 1 && !d.beyond && <Pager page={d.page} pages={pages} params={params} />}
       </div>
-      <FacetPanel facets={facets} active={active} params={params} />
+      <FacetPanel facets={facets} active={active} params={params} leftOut={leftOut} />
     </div>
   );
 }
@@ -292,9 +387,9 @@ function Pager({ page, pages, params }: { page: number; pages: number; params: U
 // ---------------------------------------------------------------------------------------------
 // Narrowing: each choice is a link (no script needed) with the number of results it would give.
 
-function FacetPanel({ facets, active, params }: { facets: Facets; active: ResultsData["active"]; params: URLSearchParams }) {
+function FacetPanel({ facets, active, params, leftOut }: { facets: Facets; active: ResultsData["active"]; params: URLSearchParams; leftOut: LeftOutFilters }) {
   return (
-    <aside aria-label="Narrow the results" className="text-step--1 md:order-first">
+    <aside id="narrow" aria-label="Narrow the results" className="scroll-mt-4 text-step--1 md:order-first">
       <h2 className="text-step-0 font-semibold text-deep-900">Narrow the results</h2>
       {!facets.counted && (
         <p className="mt-1 text-ink-soft">Too many matches to count for each choice; choose one to narrow.</p>
@@ -308,8 +403,12 @@ function FacetPanel({ facets, active, params }: { facets: Facets; active: Result
         params={params}
         counted={facets.counted}
       />
-      <FacetList title="System" param="system" current={params.get("system")} anyLabel="Any system" options={facets.systems} params={params} counted={facets.counted} />
-      <FacetList title="Zone of the boat" param="zone" current={params.get("zone")} anyLabel="Anywhere aboard" options={facets.zones} params={params} counted={facets.counted} />
+      <FacetList title="System" param="system" current={params.get("system")} anyLabel="Any system" options={facets.systems} params={params} counted={facets.counted}>
+        <UnknownTag leftOut={leftOut} which="system" links={params} />
+      </FacetList>
+      <FacetList title="Zone of the boat" param="zone" current={params.get("zone")} anyLabel="Anywhere aboard" options={facets.zones} params={params} counted={facets.counted}>
+        <UnknownTag leftOut={leftOut} which="zone" links={params} />
+      </FacetList>
       <FacetList
         title="Applies to"
         param="hull"
@@ -336,8 +435,9 @@ function FacetPanel({ facets, active, params }: { facets: Facets; active: Result
 }
 
 function FacetList({
-  title, param, current, anyLabel, options, params, counted,
+  title, param, current, anyLabel, options, params, counted, children,
 }: {
+  children?: React.ReactNode;
   title: string;
   param: string;
   current: string | null;
@@ -351,6 +451,7 @@ function FacetList({
   return (
     <section aria-labelledby={id} className="mt-5">
       <h3 id={id} className="font-semibold uppercase tracking-wide text-ink-soft">{title}</h3>
+      {children}
       <ul className="mt-1.5 grid gap-0.5">
         <li>
           {current ? (
@@ -359,7 +460,8 @@ function FacetList({
             <span className="block rounded px-2 py-1 font-medium text-deep-900" aria-current="true">{anyLabel}</span>
           )}
         </li>
-        {options.map((o) => {
+        {/* A choice that would give nothing is left out (as the systems and zones with no result are). */}
+        {options.filter((o) => !counted || o.count > 0 || current === o.value).map((o) => {
           const on = current === o.value;
           const label = counted ? `${o.label} (${o.count})` : o.label;
           return (
@@ -367,10 +469,6 @@ function FacetList({
               {on ? (
                 <span aria-current="true" className="flex justify-between gap-2 rounded bg-deep-700 px-2 py-1 font-medium text-cloth-50">
                   <span>{o.label}</span>{counted && <span>{o.count}</span>}
-                </span>
-              ) : counted && o.count === 0 ? (
-                <span className="flex justify-between gap-2 px-2 py-1 text-ink-soft" aria-label={label}>
-                  <span>{o.label}</span><span>0</span>
                 </span>
               ) : (
                 <Link to={searchHref(params, { [param]: o.value })} aria-label={label} className="flex justify-between gap-2 rounded px-2 py-1 hover:bg-cloth-100">
@@ -453,6 +551,40 @@ function SyntaxHelp({ intro = false }: { intro?: boolean }) {
           The class's other words for the same thing are searched too: a settee is also a berth or a bunk, the forepeak
           the V-berth, the stern locker the lazarette, the head the toilet.
         </li>
+      </ul>
+    </div>
+  );
+}
+
+/** What was left out of this search because it could not be read, in a sentence each. */
+function LeftOutSentences({ leftOut }: { leftOut: LeftOutFilters }) {
+  const sentences = [
+    leftOut.hull && "This search is for every hull: the hull you gave could not be read, so it is left out until you correct it above.",
+    leftOut.fit && "This search does not check what fits: the size you gave could not be read, so it is left out until you correct it above.",
+    leftOut.system && "This search is for every system: the system asked for is not one of the class's, so it is left out until you choose one under Narrow the results.",
+    leftOut.zone && "This search is for anywhere aboard: the zone asked for is not one of the class's, so it is left out until you choose one under Narrow the results.",
+  ].filter(Boolean);
+  if (!sentences.length) return null;
+  return (
+    <div id="search-left-out" className="mb-3 rounded-md border-l-4 border-bootstripe-600 bg-bootstripe-50 p-3 text-step--1 text-bootstripe-800">
+      {sentences.map((x) => <p key={x as string}>{x}</p>)}
+    </div>
+  );
+}
+
+/** A system or zone of the address that the class does not have, with those it has. */
+function UnknownTag({ leftOut, which, links }: { leftOut: LeftOutFilters; which: "system" | "zone"; links: URLSearchParams }) {
+  const unknown = leftOut[which];
+  if (!unknown) return null;
+  return (
+    <div id={`search-${which}-error`} role="alert" className="mt-1.5 rounded-md border-l-4 border-bootstripe-600 bg-bootstripe-50 p-2 text-bootstripe-800">
+      <p className="font-medium">
+        There is no {which} “{unknown.typed}”. The {which === "system" ? "systems" : "zones"} are:
+      </p>
+      <ul className="mt-1 flex flex-wrap gap-x-3 gap-y-0.5">
+        {unknown.choices.map((c) => (
+          <li key={c.slug}><Link to={searchHref(links, { [which]: c.slug })}>{c.name}</Link></li>
+        ))}
       </ul>
     </div>
   );

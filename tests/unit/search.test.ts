@@ -3,15 +3,37 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
-  anyOfWords, dimensionsInQuery, escapeHtml, HIT_END, HIT_START, parseHullFilter, parseSearchParams, queryWords,
-  readHeadline, replaceWords, searchHref, snippetHtml, snippetParts, typeaheadWords, usesSyntax, wordStarts,
+  anyOfWords, dimensionsInQuery, escapeHtml, hasSearchWords, HIT_END, HIT_START, parseHullFilter, parseSearchParams, queryInQuotes,
+  queryWords, readHeadline, replaceWords, searchHref, snippetHtml, snippetParts, typeaheadWords, usesSyntax, wordStarts,
 } from "~/domain/search";
+import { describeHullRangeInSentence, parseAppliesTo } from "~/domain/hulls";
 
 const IN = 25.4; // mm, exact by definition (NIST Handbook 44, Appendix C)
 
 function parse(query: string, mode: "api" | "page" = "api") {
   return parseSearchParams(new URLSearchParams(query), mode);
 }
+
+describe("the query as the page shows it", () => {
+  it("has words to look for only with a letter or a digit: punctuation alone, or 'or' alone, has none", () => {
+    for (const q of ["!!!", "?", "-- ...", '""', "or", "  "]) expect(hasSearchWords(q), q).toBe(false);
+    for (const q of ["battery", "12v", "the", "\"house battery\"", "-outboard"]) expect(hasSearchWords(q), q).toBe(true);
+  });
+
+  it("is quoted once: a quoted query keeps its own quotes, made curly, and gets no second pair", () => {
+    expect(queryInQuotes("battery box")).toBe("“battery box”");
+    expect(queryInQuotes('"house battery"')).toBe("“house battery”");
+    expect(queryInQuotes('"cockpit locker" tray')).toBe("“cockpit locker” tray");
+    expect(queryInQuotes("“house battery”")).toBe("“house battery”");
+  });
+
+  it("names hulls in lower case in the middle of a sentence, the variants as they are written", () => {
+    expect(describeHullRangeInSentence({ from: 318, to: 318 })).toBe("hull 318");
+    expect(describeHullRangeInSentence({ from: 120, to: 298 })).toBe("hulls 120–298");
+    expect(describeHullRangeInSentence({ from: 299, to: 612 })).toBe("Mk II (hulls 299–612)");
+    expect(describeHullRangeInSentence({ from: 1, to: 612 })).toBe("all hulls");
+  });
+});
 
 describe("reading the parameters", () => {
   it("defaults: 20 results from the first for the API, pages of 10 for the page", () => {
@@ -55,7 +77,30 @@ describe("reading the parameters", () => {
     expect(parseHullFilter("Mk I")).toEqual({ from: 1, to: 298, text: "mk1" });
     expect(parseHullFilter("mk2")).toEqual({ from: 299, to: 612, text: "mk2" });
     expect(parseHullFilter("120-298")).toEqual({ from: 120, to: 298, text: "120-298" });
-    for (const bad of ["613", "0", "300-200", "all", "big"]) expect(parseHullFilter(bad)).toHaveProperty("error");
+    for (const bad of ["613", "0", "200-613", "all", "big"]) expect(parseHullFilter(bad)).toHaveProperty("error");
+  });
+
+  it("reads a range written the other way round as the same hulls (\"298-120\" is 120-298; common practice: a range is its two ends)", () => {
+    expect(parseHullFilter("298-120")).toEqual({ from: 120, to: 298, text: "120-298" });
+    expect(parseAppliesTo("298-120")).toEqual({ from: 120, to: 298 });
+    expect(parseAppliesTo("612 to 299")).toEqual({ from: 299, to: 612 });
+    expect(parseAppliesTo("613-1")).toHaveProperty("error"); // the demo class's hulls are 1-612
+  });
+
+  it("on the page, leaves out a hull or a size it cannot read and says why in a sentence for the field; the API refuses them", () => {
+    const hull = parse("q=battery&hull=999&system=electrical", "page");
+    expect(hull).toMatchObject({ ok: true, request: { q: "battery", filters: { hull: null, system: "electrical" } } });
+    if (!hull.ok) return;
+    expect(hull.leftOut.hull).toBe("There is no hull 999: the class's hulls are numbered 1 to 612. Give a hull number from 1 to 612, a variant (Mk I, Mk II) or a range such as 120-298.");
+    const fit = parse("q=battery&fit=13 by seven", "page");
+    expect(fit).toMatchObject({ ok: true, fitTyped: "13 by seven", request: { q: "battery", filters: { fit: null } } });
+    if (!fit.ok) return;
+    expect(fit.leftOut.fit).toBe('Enter 3 sizes separated by "x", like 13 x 7 x 9 1/2 in.');
+    expect(fit.leftOut.fit?.startsWith("fit:")).toBe(false);
+    expect(parse("q=battery&fit=" + "9 ".repeat(50), "page")).toMatchObject({ ok: true, leftOut: { fit: expect.any(String) } });
+    expect(parse("q=battery", "page")).toMatchObject({ ok: true, leftOut: {} });
+    expect(parse("q=battery&hull=999")).toMatchObject({ ok: false, parameter: "hull" });
+    expect(parse("q=battery&fit=13 by seven")).toMatchObject({ ok: false, parameter: "fit" });
   });
 
   it("reads the dimension filter in the unit given", () => {
