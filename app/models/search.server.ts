@@ -160,10 +160,18 @@ function branches(f: SearchFilters, fitSpaceIds: number[] | null): Branch[] {
   return out.filter((b) => f.kind === null || b.kind === f.kind);
 }
 
-const TABLE: Record<SearchKind, { from: SQL; alias: SQL; dated: SQL; boost: SQL | null }> = {
-  writeup: { from: sql.raw("writeups w"), alias: sql.raw("w"), dated: sql.raw("w.published_at"), boost: DONE_TOO_BOOST(sql.raw("w.id")) },
-  space: { from: sql.raw("spaces sp"), alias: sql.raw("sp"), dated: sql.raw("null::timestamptz"), boost: null },
-  item: { from: sql.raw("items i"), alias: sql.raw("i"), dated: sql.raw("null::timestamptz"), boost: null },
+/**
+ * A catalogue item's rank counts ITEM_WEIGHT of a write-up's or a space's. An item is a size to
+ * check against, not an owner's account of a job, and its few words rank high under the length
+ * normalisation ("battery" put seven battery sizes above the second write-up about moving one);
+ * an item whose name matches much better than any write-up still comes first.
+ */
+export const ITEM_WEIGHT = 0.6;
+
+const TABLE: Record<SearchKind, { from: SQL; alias: SQL; dated: SQL; boost: SQL | null; weight: number }> = {
+  writeup: { from: sql.raw("writeups w"), alias: sql.raw("w"), dated: sql.raw("w.published_at"), boost: DONE_TOO_BOOST(sql.raw("w.id")), weight: 1 },
+  space: { from: sql.raw("spaces sp"), alias: sql.raw("sp"), dated: sql.raw("null::timestamptz"), boost: null, weight: 1 },
+  item: { from: sql.raw("items i"), alias: sql.raw("i"), dated: sql.raw("null::timestamptz"), boost: null, weight: ITEM_WEIGHT },
 };
 
 
@@ -195,6 +203,7 @@ function hitsSql(words: boolean, list: Branch[], fitIds: number[] | null): SQL {
     if (words) {
       conditions.push(sql`${t.alias}.search @@ (select query from q)`);
       score = sql`ts_rank_cd(${WEIGHTS}, ${t.alias}.search, (select query from q), ${NORMALISATION})`;
+      if (t.weight !== 1) score = sql`${score} * ${sql.raw(String(t.weight))}`;
       boosted = t.boost !== null;
     } else if (ids && b.kind === "space") {
       score = sql`1.0 / array_position(${ids}, sp.id)`;
@@ -254,6 +263,9 @@ function hitsSql(words: boolean, list: Branch[], fitIds: number[] | null): SQL {
 /** How near (pg_trgm similarity) a word of the vocabulary must be to a word typed to be suggested for it. */
 const SUGGESTION_SIMILARITY = 0.4;
 
+/** How much of a text's beginning a snippet without the words shows (characters, cut at a word). */
+const LEAD_CHARS = 280;
+
 /** How many rows of the write-ups table a search with words reads before it turns to the index. */
 const PROBE_ROWS = 1000;
 /** ... of which the first PROBE_FIRST must hold PROBE_DENSE matches for the rest to be read (10 %). */
@@ -289,10 +301,10 @@ type Row = {
   total: number; capped: boolean; parsed: string; expanded: string; synonyms: string[];
   type: SearchKind | null; id: number | null; score: number | null; info: Info | null;
 };
-type Info =
+type Info = { lead: string | null } & (
   | { slug: string; title: string; headline: string | null; author: string; hull_number: number | null; published_at: string | null; hull_from: number; hull_to: number; done_too: number; systems: { slug: string; name: string }[] }
   | { slug: string; title: string; headline: string | null; zone: string; hull_from: number; hull_to: number; measurements: number }
-  | { slug: string; title: string; headline: string | null; kind: string; length_mm: number; width_mm: number; height_mm: number; orientation: string };
+  | { slug: string; title: string; headline: string | null; kind: string; length_mm: number; width_mm: number; height_mm: number; orientation: string });
 
 type Page = { rows: SearchResult[]; total: number; capped: boolean; analysis: QueryAnalysis | null };
 
@@ -309,6 +321,15 @@ async function page(db: DbOrTx, words: string | null, f: SearchFilters, fitIds: 
     words === null
       ? unmarked(sql`left(${fallback}, 280)`)
       : sql`ts_headline(${CONFIG}, ${unmarked(headlineWindow(text, starts))}, (select query from q), ${HEADLINE_OPTIONS})`;
+  // The text's beginning, cut at a word: the snippet when the words are not in the text shown
+  // (only in the title, or through a synonym far into the body), where ts_headline gives its
+  // first MinWords words, cut mid-phrase.
+  const lead = (text: SQL) =>
+    words === null
+      ? sql`null::text`
+      : sql`(select case when length(x) <= ${LEAD_CHARS}::int then x
+                         else regexp_replace(left(x, ${LEAD_CHARS + 1}::int), '\s+\S*$', '') || ' …' end
+               from (select ${unmarked(sql`left(${text}, ${LEAD_CHARS + 20}::int)`)} as x) l)`;
   const analysis = words === null
     ? sql`select ''::text as parsed, ''::text as expanded, '{}'::text[] as synonyms`
     : sql`select p.parsed::text as parsed, e.query::text as expanded,
@@ -340,6 +361,7 @@ async function page(db: DbOrTx, words: string | null, f: SearchFilters, fitIds: 
       left join lateral (
         select json_build_object(
                  'slug', w.slug, 'title', w.title, 'headline', ${headline(sql`w.summary || E'\n' || w.body_text`, sql`w.summary`)},
+                 'lead', ${lead(sql`w.summary || E'\n' || w.body_text`)},
                  'author', coalesce(u.credit_as, u.display_name), 'hull_number', b.hull_number, 'published_at', w.published_at,
                  'hull_from', w.hull_from, 'hull_to', w.hull_to,
                  'done_too', (select count(*) from done_too d where d.writeup_id = w.id),
@@ -352,14 +374,14 @@ async function page(db: DbOrTx, words: string | null, f: SearchFilters, fitIds: 
          where w.id = case when s.type = 'writeup' then s.id end) dw on true
       left join lateral (
         select json_build_object(
-                 'slug', sp.slug, 'title', sp.name, 'headline', ${headline(sql`sp.obstructions`, sql`sp.obstructions`)},
+                 'slug', sp.slug, 'title', sp.name, 'headline', ${headline(sql`sp.obstructions`, sql`sp.obstructions`)}, 'lead', ${lead(sql`sp.obstructions`)},
                  'zone', z.name, 'hull_from', sp.hull_from, 'hull_to', sp.hull_to,
                  'measurements', (select count(*) from space_measurements m where m.space_id = sp.id)) as info
           from spaces sp join zones z on z.slug = sp.zone_slug
          where sp.id = case when s.type = 'space' then s.id end) ds on true
       left join lateral (
         select json_build_object(
-                 'slug', i.slug, 'title', i.name, 'headline', ${headline(sql`i.note`, sql`i.note`)}, 'kind', i.kind,
+                 'slug', i.slug, 'title', i.name, 'headline', ${headline(sql`i.note`, sql`i.note`)}, 'lead', ${lead(sql`i.note`)}, 'kind', i.kind,
                  'length_mm', i.length_mm, 'width_mm', i.width_mm, 'height_mm', i.height_mm, 'orientation', i.orientation) as info
           from items i
          where i.id = case when s.type = 'item' then s.id end) di on true
@@ -370,7 +392,8 @@ async function page(db: DbOrTx, words: string | null, f: SearchFilters, fitIds: 
     if (x.type === null || x.id === null || x.info === null) continue;
     const score = Number(x.score);
     const info = x.info;
-    const snippet = readHeadline(info.headline ?? "");
+    const marked = readHeadline(info.headline ?? "");
+    const snippet = marked.highlights.length || !info.lead ? marked : readHeadline(info.lead);
     if (x.type === "writeup" && "author" in info) {
       results.push({
         type: "writeup", id: x.id, slug: info.slug, title: info.title, url: `/writeups/${info.slug}`, snippet, systems: info.systems, score,

@@ -203,6 +203,27 @@ describe("relevance on the demo class", () => {
     }
   });
 
+  it("puts the write-ups about moving a battery above the catalogue's battery sizes for 'battery'", async () => {
+    const { body } = await api("q=battery&limit=20");
+    const order = body.results.map((r: any) => `${r.type}:${r.url}`);
+    const firstItem = order.findIndex((x: string) => x.startsWith("item:"));
+    expect(firstItem).toBeGreaterThan(-1);
+    for (const slug of ["group-27-battery-under-starboard-settee", "correcting-starboard-list-second-battery-mk2"]) {
+      const at = order.indexOf(`writeup:/writeups/${slug}`);
+      expect({ slug, found: at > -1, beforeItems: at < firstItem }).toEqual({ slug, found: true, beforeItems: true });
+    }
+  });
+
+  it("shows the beginning of a text, cut at a word, when the words are only in the title", async () => {
+    // The BCI group sizes have "battery" in their names only (app/domain/items.ts).
+    const answer = await search(t.db, req("battery"));
+    const item = answer.results.find((r) => r.type === "item" && r.title === "Battery, BCI group 27")!;
+    expect(item.snippet).toEqual({
+      text: "Maximum case size from the BCI group size chart; cases vary by maker and are at or under it. Measure yours.",
+      highlights: [],
+    });
+  });
+
   it("gives a mild boost to a write-up more boats have done too", async () => {
     const ids = await twinWriteups();
     const before = (await search(t.db, req("quadrant tiller sheave"))).results.filter((r) => ids.includes(r.id));
