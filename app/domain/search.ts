@@ -75,7 +75,7 @@ export function parseHullFilter(raw: string): HullFilter | { error: string } {
   const text = raw.trim().toLowerCase().replace(/^hull\s*/, "").replace(/^#/, "");
   if (/^\d+$/.test(text)) {
     const n = Number(text);
-    if (n < FIRST_HULL || n > LAST_HULL) return { error: `There is no hull ${n}: the class's hulls are numbered ${FIRST_HULL} to ${LAST_HULL}. Give ${HULL_CHOICES}.` };
+    if (n < FIRST_HULL || n > LAST_HULL) return { error: `There is no hull ${n}: the class's hulls are numbered ${FIRST_HULL} to ${LAST_HULL}. Give one of those, a variant (Mk I, Mk II) or a range such as 120-298.` };
     return { from: n, to: n, text };
   }
   const variant = VARIANTS.find((v) => v.key === text.replace(/\s+/g, "") || v.label.toLowerCase() === text);

@@ -685,32 +685,36 @@ export async function searchTaxonomy(db: DbOrTx) {
 
 export type Suggestion = { type: "writeup" | "system" | "zone" | "space" | "item"; label: string; url: string };
 
-/** A tsquery of the words: whole words stemmed, the last as a beginning; `weights` restricts ("A": titles only). */
-function prefixQuery(words: { whole: string[]; prefix: string | null }, join: "&" | "|", weights = ""): SQL | null {
+/**
+ * A tsquery of the words: whole words stemmed, with the class's synonyms (a "bunk" also suggests
+ * the settee's and the berth's titles, as the search finds them), the last as a beginning.
+ */
+function prefixQuery(words: { whole: string[]; prefix: string | null }): SQL | null {
   // The words hold only letters and digits (typeaheadWords), so quoting them is enough.
-  const terms: SQL[] = words.whole.map((w) => sql`to_tsquery(${CONFIG}, ${`'${w}'${weights ? `:${weights}` : ""}`})`);
+  const terms: SQL[] = words.whole.map((w) => sql`search_expand(to_tsquery(${CONFIG}, ${`'${w}'`}))`);
   if (words.prefix) {
-    const p = `'${words.prefix}':*${weights}`;
-    terms.push(sql`(to_tsquery('simple'::regconfig, ${p}) || to_tsquery(${CONFIG}, ${p}))`);
+    const p = `'${words.prefix}':*`;
+    // ... and, if it is already a whole word, that word with its synonyms.
+    terms.push(sql`(to_tsquery('simple'::regconfig, ${p}) || to_tsquery(${CONFIG}, ${p}) || search_expand(to_tsquery(${CONFIG}, ${`'${words.prefix}'`})))`);
   }
   if (!terms.length) return null;
-  return sql.join(terms.map((t) => sql`(${t})`), join === "&" ? sql` && ` : sql` || `);
+  return sql.join(terms.map((t) => sql`(${t})`), sql` || `);
 }
 
 export async function suggest(db: DbOrTx, text: string, limit = 8): Promise<Suggestion[]> {
   const words = typeaheadWords(text);
   const all = [...words.whole, ...(words.prefix ? [words.prefix] : [])];
   if (!all.length || all.join("").length < 2) return [];
-  const anyTitle = prefixQuery(words, "|", "A");
-  const anyName = prefixQuery(words, "|");
-  if (!anyTitle || !anyName) return [];
+  const anyName = prefixQuery(words);
+  if (!anyName) return [];
   const r = await db.execute<{ type: Suggestion["type"]; label: string; slug: string; n: number }>(sql`
-    with t as materialized (select ${anyTitle} as title_q, ${anyName} as name_q),
+    with t as materialized (select ${anyName} as name_q),
     titles as (
+      -- The titles alone (their own GIN index, writeups_title_search_idx).
       select 'writeup'::text as type, w.title as label, w.slug,
-             ts_rank('{0, 0, 0, 1}', w.search, (select title_q from t)) * ${DONE_TOO_BOOST(sql.raw("w.id"))} as n
+             ts_rank(to_tsvector(${CONFIG}, w.title), (select name_q from t)) * ${DONE_TOO_BOOST(sql.raw("w.id"))} as n
         from writeups w
-       where w.status = 'published' and w.search @@ (select title_q from t)
+       where w.status = 'published' and to_tsvector(${CONFIG}, w.title) @@ (select name_q from t)
        order by n desc, w.published_at desc
        limit 5
     ),

@@ -144,7 +144,7 @@ export default function SearchPage({ loaderData }: Route.ComponentProps) {
       {d.state === "no-words" && (
         <div className="mt-6 max-w-2xl rounded-lg bg-cloth-100 p-5" id="search-no-words">
           <p className="font-medium">
-            There are no words in {queryInQuotes(d.q)} to look for, only punctuation. Add a word that says what the job is about.
+            There is nothing to look for in {queryInQuotes(d.q)}: a search needs a word. Add one that says what the job is about.
           </p>
           {d.filtered && (
             <p className="mt-2"><Link to={searchHref(links, { q: null })}>Search with the filters alone</Link></p>

@@ -64,7 +64,7 @@ describe("a hull or a size that cannot be read (the rule: a message beside the f
     expect(input).toContain('aria-invalid="true"');
     expect(input).toContain('aria-describedby="search-hull-error search-hull-hint"');
     expect(input).toContain('value="999"');
-    expect(page.html).toMatch(/<p id="search-hull-error"[^>]*>There is no hull 999: the class&#x27;s hulls are numbered 1 to 612\./);
+    expect(page.html).toMatch(/<p id="search-hull-error"[^>]*>There is no hull 999: the class&#x27;s hulls are numbered 1 to 612\. Give one of those/);
     expect(page.text).not.toMatch(/hull: (a hull|there)/i);
     expect(page.text).not.toContain("could not be read:");
     expect(page.text).toContain("This search is for every hull: the hull you gave could not be read, so it is left out until you correct it above.");
@@ -126,7 +126,7 @@ describe("a query with no words", () => {
     for (const q of ["!!!", "?%3F", "or"]) {
       const page = await render(`q=${q}`);
       expect(page.data.state, q).toBe("no-words");
-      expect(page.text).toContain("to look for, only punctuation. Add a word that says what the job is about.");
+      expect(page.text).toContain(": a search needs a word. Add one that says what the job is about.");
       expect(page.html).not.toContain("search-summary");
     }
   });

@@ -334,7 +334,7 @@ describe("GET /api/search", () => {
       ["q=battery&offset=-1", "offset"],
       ["q=battery&hull=613", "hull"],
       ["q=battery&hull=mk3", "hull"],
-      ["q=battery&hull=300-200", "hull"],
+      ["q=battery&hull=200-613", "hull"], // "300-200" is a range written the other way round, read as 200-300
       ["q=battery&system=sails", "system"],
       ["q=battery&system=<b>", "system"],
       ["q=battery&zone=attic", "zone"],
@@ -534,6 +534,15 @@ describe("type-ahead and the vocabulary", () => {
       { type: "zone", label: "Lazarette", url: "/search?zone=lazarette" },
       { type: "space", label: "Lazarette (stern locker)", url: "/spaces/lazarette" },
     ]));
+    // The class's other words, as the search has them: a settee's and a berth's titles for "bunk".
+    for (const typed of ["bunk", "bunk "]) {
+      const labels = (await suggest(t.db, typed)).map((x) => x.label);
+      expect({ typed, labels }).toEqual({ typed, labels: expect.arrayContaining([
+        "Trailer bunks rebuilt, keel pad reset, and new lights with a proper ground",
+        "Group 27 battery moved under the starboard settee",
+        "Correcting a starboard list by moving the second battery to the port berth (Mk II)",
+      ]) });
+    }
     expect(await suggest(t.db, "l")).toEqual([]);
     expect(await suggest(t.db, "the ")).toEqual([]);
     expect((await suggest(t.db, "zzqx")).length).toBe(0);

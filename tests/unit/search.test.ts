@@ -91,7 +91,7 @@ describe("reading the parameters", () => {
     const hull = parse("q=battery&hull=999&system=electrical", "page");
     expect(hull).toMatchObject({ ok: true, request: { q: "battery", filters: { hull: null, system: "electrical" } } });
     if (!hull.ok) return;
-    expect(hull.leftOut.hull).toBe("There is no hull 999: the class's hulls are numbered 1 to 612. Give a hull number from 1 to 612, a variant (Mk I, Mk II) or a range such as 120-298.");
+    expect(hull.leftOut.hull).toBe("There is no hull 999: the class's hulls are numbered 1 to 612. Give one of those, a variant (Mk I, Mk II) or a range such as 120-298.");
     const fit = parse("q=battery&fit=13 by seven", "page");
     expect(fit).toMatchObject({ ok: true, fitTyped: "13 by seven", request: { q: "battery", filters: { fit: null } } });
     if (!fit.ok) return;
