@@ -1,5 +1,6 @@
 import { type FieldMetadata, getFormProps, getInputProps, getSelectProps, getTextareaProps, useForm } from "@conform-to/react";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
+import { Fragment } from "react";
 import { data, Form, Link, useLoaderData, useNavigation } from "react-router";
 import type { Route } from "./+types/space";
 import { CautionList } from "~/components/cautions";
@@ -23,6 +24,8 @@ import { mediaUrl, parsePhotoUpload, PhotoRejectedError, storeUploadedPhoto, thu
 import { getUser, readNotice, redirectWithNotice, requireUser } from "~/services/session.server";
 import { readerUnit } from "./reader-unit.server";
 import { keepPageForVisitors } from "~/services/page-cache.server";
+import { formatDate } from "~/components/writeup-card";
+import { creditWithoutHulls, typesetHullRanges } from "~/domain/space-words";
 
 const AXES = ["length", "width", "height"] as const;
 const AXIS_HEADINGS = { length: "Length", width: "Width", height: "Height" } as const;
@@ -94,7 +97,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       : null;
 
   const describeRecord = (r: MeasurementRecord) =>
-    `${many ? `${partName(r.section)}, ` : ""}hull ${r.hullNumber}, ${METHOD_LABELS[r.method as MeasureMethod] ?? r.method}, ${r.measuredOn}: ${describeBox({ length: r.lengthMm, width: r.widthMm, height: r.heightMm }, unit)}`;
+    `${many ? `${partName(r.section)}, ` : ""}hull ${r.hullNumber}, ${METHOD_LABELS[r.method as MeasureMethod] ?? r.method}, ${formatDate(r.measuredOn)}: ${describeBox({ length: r.lengthMm, width: r.widthMm, height: r.heightMm }, unit)}`;
 
   return data(
     {
@@ -102,7 +105,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       notice,
       space: {
         slug: space.slug,
-        name: space.name,
+        name: typesetHullRanges(space.name),
         zone: space.zone.name,
         hulls: describeHullRange(space.hulls),
         aftOfBow: len(space.position.aftOfBowMm),
@@ -135,13 +138,14 @@ export async function loader({ request, params }: Route.LoaderArgs) {
           .filter((m) => m.section === sec.position)
           .map((m) => ({
             id: m.id,
-            by: m.by,
+            // The hull measured has a place of its own: the credit without the hull numbers it names.
+            by: creditWithoutHulls(m.by),
             hull: m.hullNumber,
             method: METHOD_LABELS[m.method],
-            date: m.measuredOn,
+            date: formatDate(m.measuredOn),
             photo: m.photoKey ? { url: mediaUrl(m.photoKey), thumb: mediaUrl(thumbnailKey(m.photoKey)) } : null,
             cells: AXES.map((a) => ({ axis: a, text: len(m.box[a]), flagged: m.flagged.includes(a) })),
-            changed: m.updated ? `changed ${m.updated.at.toISOString().slice(0, 10)}${m.updated.by ? ` by ${m.updated.by}` : ""}` : null,
+            changed: m.updated ? `changed ${formatDate(m.updated.at)}${m.updated.by ? ` by ${m.updated.by}` : ""}` : null,
             mine: m.userId === user?.id,
             canChange: user ? canChangeMeasurement(user, m.userId) : false,
           })),
@@ -149,7 +153,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       sectionChoices: space.sections.map((sec) => ({ position: sec.position, label: sec.label })),
       changes: space.changes.map((c) => ({
         id: c.id,
-        date: c.at.toISOString().slice(0, 10),
+        date: formatDate(c.at),
         text:
           `${c.by ?? "A former member"} ${c.kind === "edited" ? "changed" : "removed"} ` +
           `${c.by !== null && c.by === c.takenBy ? "their own" : `${c.takenBy ?? "a former member"}'s`} measurement`,
@@ -308,27 +312,26 @@ export default function SpacePage({ loaderData, actionData }: Route.ComponentPro
         <h2 id="size-heading" className="text-step-2 font-semibold">Its size</h2>
         <SpaceDrawing input={drawing} unit={unit} label={`Drawing of ${space.name.toLowerCase()}`} />
         <DrawingKey />
-        <div className="overflow-x-auto">
-          <table className="w-full min-w-[28rem] border-collapse text-step--1">
-            <caption className="sr-only">Sections of the space</caption>
-            <thead>
-              <tr className="border-b border-cloth-300 text-left">
-                <th scope="col" className="py-1 pr-3 font-medium">Part</th>
-                <th scope="col" className="py-1 pr-3 font-medium">Size used by the fit check</th>
-                <th scope="col" className="py-1 font-medium">As first recorded</th>
+        {/* No fixed width: on a phone the sizes wrap between dimensions, never inside one. */}
+        <table className="w-full border-collapse text-step--1">
+          <caption className="sr-only">Sections of the space</caption>
+          <thead>
+            <tr className="border-b border-cloth-300 text-left align-bottom">
+              <th scope="col" className="py-1 pr-3 font-medium">Part</th>
+              <th scope="col" className="py-1 pr-3 font-medium">Used by the fit check</th>
+              <th scope="col" className="py-1 font-medium">First recorded</th>
+            </tr>
+          </thead>
+          <tbody>
+            {space.sections.map((sec, i) => (
+              <tr key={i} className="border-b border-cloth-200 align-top">
+                <td className="py-1.5 pr-3">{sec.label}</td>
+                <td className="py-1.5 pr-3 tabular-nums"><BoxText text={sec.fit} />{sec.changed ? " (members' consensus)" : ""}</td>
+                <td className="py-1.5 tabular-nums text-ink-soft"><BoxText text={sec.described} /></td>
               </tr>
-            </thead>
-            <tbody>
-              {space.sections.map((sec, i) => (
-                <tr key={i} className="border-b border-cloth-200 align-top">
-                  <td className="py-1.5 pr-3">{sec.label}</td>
-                  <td className="py-1.5 pr-3 tabular-nums">{sec.fit}{sec.changed ? " (members' consensus)" : ""}</td>
-                  <td className="py-1.5 tabular-nums text-ink-soft">{sec.described}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+            ))}
+          </tbody>
+        </table>
         <p className="text-step--1 text-ink-soft">
           Length fore and aft × width athwartships × height. Opening: {space.opening ?? "not recorded"}.
           {many && " The parts are alternatives inside the space: an item must fit wholly inside one of them."}
@@ -419,6 +422,8 @@ function PartMeasurements({ part, many, unit }: { part: Part; many: boolean; uni
   const { measurements, consensus } = part;
   const withPhotos = measurements.some((m) => m.photo);
   const headingId = `part-${part.position}-heading`;
+  // On a phone the table has four columns: who, when, how and the photo sit in the first one,
+  // under the member's credit, so the three sizes and their flags stay in view (390 px wide).
   return (
     <div aria-labelledby={many ? headingId : undefined} role={many ? "group" : undefined} className="space-y-2">
       {many && <h3 id={headingId} className="text-step-1 font-semibold">{part.label[0].toUpperCase() + part.label.slice(1)}</h3>}
@@ -429,22 +434,33 @@ function PartMeasurements({ part, many, unit }: { part: Part; many: boolean; uni
           <table className="w-full border-collapse text-step--1" data-part={part.position}>
             <caption className="sr-only">Measurements of the {part.label}, the consensus (median) and the spread of each dimension</caption>
             <thead>
-              <tr className="border-b border-cloth-300 text-left">
-                <th scope="col" className="py-1 pr-3 font-medium">Measured</th>
+              <tr className="border-b border-cloth-300 text-left align-bottom">
+                <th scope="col" className="hidden py-1 pr-3 font-medium sm:table-cell">Measured</th>
+                <th scope="col" className="py-1 pr-2 font-medium sm:pr-3">By</th>
                 <th scope="col" className="hidden py-1 pr-3 font-medium sm:table-cell">Hull</th>
-                <th scope="col" className="py-1 pr-3 font-medium">By</th>
                 <th scope="col" className="hidden py-1 pr-3 font-medium sm:table-cell">With</th>
                 {AXES.map((a) => (
-                  <th key={a} scope="col" className="py-1 pr-2 text-right font-medium">{AXIS_HEADINGS[a]}<span className="sm:hidden">, {unit}</span></th>
+                  <th key={a} scope="col" className="py-1 pr-1 text-right font-medium sm:pr-2">
+                    {AXIS_HEADINGS[a]}<span className="sm:hidden">, {unit}</span>
+                  </th>
                 ))}
-                {withPhotos && <th scope="col" className="py-1 font-medium">Photo</th>}
+                {withPhotos && <th scope="col" className="hidden py-1 font-medium sm:table-cell">Photo</th>}
               </tr>
             </thead>
             <tbody>
               {measurements.map((m) => (
-                <tr key={m.id} id={`measurement-${m.id}`} className="border-b border-cloth-200 align-top">
-                  <td className="py-1.5 pr-3">
-                    <span className="whitespace-nowrap tabular-nums">{m.date}</span>
+                <tr key={m.id} id={`measurement-${m.id}`} className="border-b border-cloth-200 align-top" data-measurement={m.id}>
+                  <td className="hidden py-1.5 pr-3 whitespace-nowrap tabular-nums sm:table-cell">{m.date}</td>
+                  <td className="py-1.5 pr-2 sm:pr-3">
+                    <span data-by>{m.by}</span>
+                    {/* On a phone, the hull, the tool and the date sit under the credit. */}
+                    <span className="block text-ink-soft sm:hidden">hull {m.hull} · {m.method}</span>
+                    <span className="block text-ink-soft tabular-nums sm:hidden">{m.date}</span>
+                    {m.photo && (
+                      <a href={m.photo.url} className="mt-1 block sm:hidden">
+                        <img src={m.photo.thumb} alt={`Photo of the measurement on hull ${m.hull}`} className="h-12 w-16 rounded-sm object-cover" loading="lazy" />
+                      </a>
+                    )}
                     {m.canChange && (
                       <Link
                         to={`?edit=${m.id}&unit=${unit}#edit-measurement`}
@@ -457,24 +473,19 @@ function PartMeasurements({ part, many, unit }: { part: Part; many: boolean; uni
                     {m.changed && <span className="block text-[0.75rem] text-ink-soft">{m.changed}</span>}
                   </td>
                   <td className="hidden py-1.5 pr-3 tabular-nums sm:table-cell">{m.hull}</td>
-                  <td className="py-1.5 pr-3">
-                    {m.by}
-                    {/* On a phone, hull and method sit under the name. */}
-                    <span className="block text-ink-soft sm:hidden">hull {m.hull} · {m.method}</span>
-                  </td>
                   <td className="hidden py-1.5 pr-3 sm:table-cell">{m.method}</td>
                   {m.cells.map((cell) => (
-                    <td key={cell.axis} className="py-1.5 pr-2 text-right whitespace-nowrap tabular-nums" data-flagged={cell.flagged || undefined}>
+                    <td key={cell.axis} className="py-1.5 pr-1 text-right tabular-nums sm:pr-2" data-axis={cell.axis} data-flagged={cell.flagged || undefined}>
                       {cell.flagged ? (
-                        <span className="inline-block rounded-sm border border-dashed border-deep-500 px-1.5 py-0.5 text-right">
-                          <span className="block font-semibold text-deep-900"><Length text={cell.text} /></span>
-                          <span className="block text-[0.75rem] text-ink-soft">far from the others</span>
+                        <span className="inline-block rounded-sm border border-dashed border-deep-500 px-1 py-0.5 text-right sm:px-1.5">
+                          <span className="block font-semibold whitespace-nowrap text-deep-900"><Length text={cell.text} /></span>
+                          <span className="block text-[0.75rem] leading-tight text-ink-soft">far from the others</span>
                         </span>
-                      ) : <Length text={cell.text} />}
+                      ) : <span className="whitespace-nowrap"><Length text={cell.text} /></span>}
                     </td>
                   ))}
                   {withPhotos && (
-                    <td className="py-1.5">
+                    <td className="hidden py-1.5 sm:table-cell">
                       {m.photo && (
                         <a href={m.photo.url}>
                           <img src={m.photo.thumb} alt={`Photo of the measurement on hull ${m.hull}`} className="h-12 w-16 rounded-sm object-cover" loading="lazy" />
@@ -488,16 +499,16 @@ function PartMeasurements({ part, many, unit }: { part: Part; many: boolean; uni
             {consensus && (
               <tfoot>
                 <tr className="border-t-2 border-deep-700 font-semibold">
-                  <th scope="row" colSpan={2} className="py-1.5 pr-3 text-left">Consensus (median)</th>
-                  <td className="hidden sm:table-cell" /><td className="hidden sm:table-cell" />
-                  {consensus.map((d) => <td key={d.axis} className="py-1.5 pr-2 text-right whitespace-nowrap tabular-nums" data-consensus={d.axis}><Length text={d.value} /></td>)}
-                  {withPhotos && <td />}
+                  <th scope="row" className="py-1.5 pr-2 text-left sm:hidden">Consensus (median)</th>
+                  <th scope="row" colSpan={4} className="hidden py-1.5 pr-3 text-left sm:table-cell">Consensus (median)</th>
+                  {consensus.map((d) => <td key={d.axis} className="py-1.5 pr-1 text-right whitespace-nowrap tabular-nums sm:pr-2" data-consensus={d.axis}><Length text={d.value} /></td>)}
+                  {withPhotos && <td className="hidden sm:table-cell" />}
                 </tr>
                 <tr className="text-ink-soft">
-                  <th scope="row" colSpan={2} className="py-1 pr-3 text-left font-normal">Spread (largest − smallest)</th>
-                  <td className="hidden sm:table-cell" /><td className="hidden sm:table-cell" />
-                  {consensus.map((d) => <td key={d.axis} className="py-1 pr-2 text-right whitespace-nowrap tabular-nums"><Length text={d.spread} /></td>)}
-                  {withPhotos && <td />}
+                  <th scope="row" className="py-1 pr-2 text-left font-normal sm:hidden">Spread (largest − smallest)</th>
+                  <th scope="row" colSpan={4} className="hidden py-1 pr-3 text-left font-normal sm:table-cell">Spread (largest − smallest)</th>
+                  {consensus.map((d) => <td key={d.axis} className="py-1 pr-1 text-right whitespace-nowrap tabular-nums sm:pr-2" data-spread={d.axis}><Length text={d.spread} /></td>)}
+                  {withPhotos && <td className="hidden sm:table-cell" />}
                 </tr>
               </tfoot>
             )}
@@ -505,6 +516,21 @@ function PartMeasurements({ part, many, unit }: { part: Part; many: boolean; uni
         </div>
       )}
     </div>
+  );
+}
+
+/** "27 × 13 1/2 × 21 in", free to break after a "×" but never inside a dimension ("13 1/2"). */
+function BoxText({ text }: { text: string }) {
+  const dims = text.split(" × ");
+  return (
+    <>
+      {dims.map((d, i) => (
+        <Fragment key={i}>
+          {i > 0 && " "}
+          <span className="whitespace-nowrap">{d}{i < dims.length - 1 ? " ×" : ""}</span>
+        </Fragment>
+      ))}
+    </>
   );
 }
 

@@ -5,6 +5,7 @@ import { UnitToggle } from "~/components/unit-toggle";
 import { db } from "~/db/index.server";
 import { describeBox } from "~/domain/fit-search";
 import { CLASS_NAME, describeHullRange, FIRST_HULL, LAST_HULL, VARIANTS, variantOf } from "~/domain/hulls";
+import { typesetHullRanges } from "~/domain/space-words";
 import { formatLength } from "~/domain/units";
 import { listSpaces } from "~/models/spaces.server";
 import { readerUnit } from "./reader-unit.server";
@@ -36,7 +37,7 @@ export async function loader({ request }: Route.LoaderArgs) {
     const main = sp.sections[0];
     return {
       slug: sp.slug,
-      name: sp.name,
+      name: typesetHullRanges(sp.name),
       hulls: describeHullRange(sp.hulls),
       size: main ? describeBox(main.fit, unit) : "",
       sections: sp.sections.length,

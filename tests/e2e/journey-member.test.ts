@@ -46,7 +46,8 @@ describe("a member adds a measurement and writes up the job", () => {
 
   it("is told what is wrong with a size, next to the field, and keeps what he typed", async () => {
     await journey.page.goto(`${journey.server.baseUrl}/spaces/${SLUG}`);
-    await journey.page.getByRole("heading", { level: 1, name: seeded.name }).waitFor();
+    // The site writes the hull range of the seed's name ("hulls 120-298") with an en dash.
+    await journey.page.getByRole("heading", { level: 1, name: seeded.name.replace(/(\d)-(\d)/g, "$1–$2") }).waitFor();
     await journey.page.waitForSelector("#measurement-form[novalidate]", { state: "attached" }); // hydrated
     expect(await journey.page.locator("#measurements tbody tr").count()).toBe(seeded.measurements!.length);
     await journey.page.getByLabel("Length (fore and aft)").fill("24 3/4");
