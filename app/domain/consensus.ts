@@ -4,7 +4,9 @@
  * measurements that sit far from the others and deserve a second look.
  *
  * - consensus: the median. One wild value does not move it, unlike the mean.
- * - spread: largest minus smallest.
+ * - spread: largest minus smallest, of every measurement, those flagged included: it is the
+ *   largest figure shown above it minus the smallest, so the row agrees with the column, and a
+ *   flagged value widens it for all to see (docs/decisions/0002-consensus-and-sections.md).
  * - mad: the median absolute deviation, median(|x_i - median(x)|) (NIST/SEMATECH e-Handbook
  *   of Statistical Methods, section 1.3.5.6, "Measures of Scale").
  *
@@ -37,7 +39,7 @@ const ROUNDING_MM = 1e-6;
 export interface DimensionConsensus {
   /** The median, mm. */
   consensus: number;
-  /** Largest minus smallest, mm. */
+  /** Largest minus smallest, mm, of every value (flagged ones too). */
   spread: number;
   /** Median absolute deviation, mm. */
   mad: number;

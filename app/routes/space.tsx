@@ -16,7 +16,7 @@ import { describeHullRange, FIRST_HULL, LAST_HULL } from "~/domain/hulls";
 import { measurementDeleteSchema, measurementEditSchema, measurementSchema, METHOD_LABELS, type MeasureMethod } from "~/domain/items";
 import { can, canChangeMeasurement } from "~/domain/permissions";
 import { editableLength, formatLength, type LengthUnit } from "~/domain/units";
-import type { BoxConsensus } from "~/domain/consensus";
+import { OUTLIER_FLOOR_MM, type BoxConsensus } from "~/domain/consensus";
 import type { MeasurementRecord } from "~/db/schema";
 import { listItems } from "~/models/items.server";
 import { addMeasurement, asFitSpace, deleteMeasurement, getMeasurement, getSpace, hullsOfUser, updateMeasurement } from "~/models/spaces.server";
@@ -342,13 +342,22 @@ export default function SpacePage({ loaderData, actionData }: Route.ComponentPro
         <h2 id="measurements-heading" className="text-step-2 font-semibold">Members' measurements</h2>
         {count === 0 && <p className="text-ink-soft">Nobody has measured it yet. The fit check uses the size first recorded.</p>}
         {count > 0 && parts.map((part) => <PartMeasurements key={part.position} part={part} many={many} unit={unit} />)}
-        <p className="max-w-3xl text-step--1 text-ink-soft">
-          {many ? "Each part has its own consensus: the median of each dimension of the measurements of that part. " : "The consensus is the median of each dimension. "}
-          One slip of the tape does not move it; the fit check uses it.
-          A measurement is marked “far from the others” when it sits more than three estimated standard deviations
-          (from the median absolute deviation), and at least 1/4 in, from the median; only from three measurements on.
-          You can change or remove your own measurements; moderators can change or remove any, and every change is kept below.
-        </p>
+        <div className="max-w-3xl space-y-2 text-step--1 text-ink-soft" data-consensus-note>
+          <p>
+            {many ? "Each part has its own consensus: the median of each dimension of the measurements of that part. " : "The consensus is the median of each dimension. "}
+            One slip of the tape does not move it; the fit check uses it.
+          </p>
+          <p>
+            A measurement far from the others is marked so: check it before you rely on it. It still counts, in the
+            median (which it hardly moves) and in the spread (which it widens: the spread is the largest figure above it
+            minus the smallest).
+          </p>
+          <p>
+            The rule: more than three estimated standard deviations from the median (estimated from the median absolute
+            deviation), and at least {formatLength(OUTLIER_FLOOR_MM, unit)}; only from three measurements on.
+            You can change or remove your own measurements; moderators can change or remove any, and every change is kept below.
+          </p>
+        </div>
         {editing ? (
           <EditMeasurement key={editing.id} actionData={actionData} />
         ) : (

@@ -130,6 +130,22 @@ describe("the port settee's forward bay on a phone", () => {
   });
 });
 
+describe("the note under the measurements", () => {
+  beforeEach(keepEvidenceOnFailure("space-page", () => page));
+
+  it("says in plain words what the mark means, and that the spread still counts the marked value", async () => {
+    const p = await open(PHONE, "/spaces/port-settee-fwd?unit=in");
+    const note = (await p.locator("[data-consensus-note]").innerText()).replace(/\s+/g, " ");
+    const plain = note.indexOf("A measurement far from the others is marked so: check it before you rely on it.");
+    expect(plain).toBeGreaterThan(-1);
+    expect(plain).toBeLessThan(note.indexOf("standard deviations"));
+    expect(note).toContain("It still counts, in the median (which it hardly moves) and in the spread");
+    // As the note says: heights 11 3/4, 11 3/4, 12 3/4 (marked), 11.732 in; spread 12 3/4 - 11.732
+    // = 1.018 in, shown to 1/16 in as 1 in (by hand). Without the marked value it would be 0.018 in.
+    expect(await p.locator("#measurements [data-spread=height]").first().textContent()).toBe("1 in");
+  });
+});
+
 describe("the same page on a desktop", () => {
   beforeEach(keepEvidenceOnFailure("space-page", () => page));
 

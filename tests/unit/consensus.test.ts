@@ -70,6 +70,16 @@ describe("consensusOf", () => {
     expect(r?.outliers).toEqual([4]);
   });
 
+  it("the spread counts a flagged value too (docs/decisions/0002-consensus-and-sections.md)", () => {
+    // Heights of the port settee's forward bay (content-seed/spaces.yaml, invented demo data), in
+    // inches: 11.75, 11.75, 12.75, 11.732. By hand: median 11.75; deviations 0, 0, 1, 0.018; MAD
+    // 0.009 in; limit max(3 x 1.4826 x 0.009, 0.25) = 0.25 in; 12.75 is flagged. Spread over all
+    // four: 12.75 - 11.732 = 1.018 in (it would be 0.018 in without the flagged one).
+    const r = consensusOf([11.75, 11.75, 12.75, 11.732].map((v) => v * 25.4))!;
+    expect(r.outliers).toEqual([2]);
+    expect(r.spread / 25.4).toBeCloseTo(1.018, 9);
+  });
+
   it("reports outliers by their position in the input", () => {
     const r = consensusOf([352, 330, 333, 331, 336]);
     expect(r?.outliers).toEqual([0]);
