@@ -21,7 +21,7 @@ export function CableRunResult({ input, unit, title, headingLevel = 3 }: { input
     <section className="space-y-4 rounded-lg border border-cloth-200 bg-white/70 p-4 sm:p-5" data-calculation="cable-run">
       <div>
         <H className="text-step-1 font-semibold">{title || input.label || "Cable for the run"}</H>
-        <p className="mt-1 text-step--1 text-ink-soft">{what}. {DROP_CATEGORIES[input.allowedDropPct]} take {input.allowedDropPct} % (ABYC E-11, as widely reproduced).</p>
+        <p className="mt-1 text-step--1 text-ink-soft">{what}. {DROP_CATEGORIES[input.allowedDropPct]} take {input.allowedDropPct} % (ABYC E-11).</p>
       </div>
       {!r.ok ? (
         <p role="alert" className="rounded-md border-l-4 border-bootstripe-600 bg-bootstripe-50 p-3 text-bootstripe-800" data-cable-failure={r.reason}>
@@ -75,15 +75,18 @@ export function CableRunResult({ input, unit, title, headingLevel = 3 }: { input
                   </td>
                 </tr>
                 <tr className="border-b border-cloth-200 align-top" data-row="overcurrent">
-                  <th scope="row" className="py-1.5 pr-3 text-left font-medium">Largest fuse or breaker</th>
-                  <td className="py-1.5 tabular-nums">
-                    <strong data-max-overcurrent={r.maxOvercurrentA}>{r.maxOvercurrentA} A</strong> (150 % of {r.chosenAmpacityA} A, 33 CFR 183.455(c))
+                  <th scope="row" className="py-1.5 pr-3 text-left font-medium">Fuse or breaker</th>
+                  <td className="py-1.5">
+                    A standard rating at or just above what the load draws ({input.currentA} A), or the one its maker calls for
+                    (common practice), and <strong>never above <span className="tabular-nums" data-max-overcurrent={r.maxOvercurrentA}>{r.maxOvercurrentA} A</span></strong>:
+                    the most this conductor may have, 150 % of its {r.chosenAmpacityA} A (33 CFR 183.455(c)). That ceiling protects the
+                    cable; it is not the fuse to buy.
                   </td>
                 </tr>
               </tbody>
             </table>
           </div>
-          <p className="text-step--1 text-ink-soft">Sized against: {r.sizedAgainst}</p>
+          <p className="text-step--1 text-ink-soft" data-sized-against>Sized against: {r.sizedAgainst}</p>
           <p className="text-step--1 text-ink-soft">The drop is worked on the round trip, out on the positive and back on the negative: {feet(r.roundTripFt, unit)}.</p>
         </>
       )}

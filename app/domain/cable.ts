@@ -104,11 +104,11 @@ export const CABLE_CAUTIONS: readonly string[] = [
   "Put the fuse or breaker at the source: within 7 in of the connection, or within 40 in if the conductor is in a sheath (33 CFR 183.455).",
   // ABYC E-11 as reproduced; exact wording from memory (memory)
   "ABYC E-11 allows up to 72 in for a sheathed conductor connected directly to a battery terminal; confirm the distance against the current edition.",
-  // 33 CFR 183.455(c)
-  "The fuse or breaker rating may not exceed 150 % of the conductor's ampacity (33 CFR 183.455(c), circuits under 50 V); pick a standard rating at or below the maximum shown.",
+  // 33 CFR 183.455(c) for the ceiling; a rating near the load's draw is common practice.
+  "The fuse or breaker rating may not exceed 150 % of the conductor's ampacity (33 CFR 183.455(c), circuits under 50 V): that ceiling protects the cable, it is not the fuse to fit. " +
+    "Pick a standard rating at or just above what the load draws, or the one the equipment's maker calls for (common practice), and never above the maximum shown.",
   // 33 CFR 183.420, 183.445(b)
   "Secure the battery so that it cannot move more than 1 in when pulled with 90 lb or twice its weight, whichever is less (33 CFR 183.420); vent its hydrogen; cover its terminals (33 CFR 183.445(b)).",
-  SIZED_AGAINST,
   "These sizes are estimates for planning. Follow ABYC E-11 and have the installation checked by a qualified marine electrician.",
 ];
 

@@ -172,6 +172,20 @@ describe("overcurrent protection (33 CFR 183.455)", () => {
     expect(text).toMatch(/183\.420/); // battery securing and venting
     expect(text).toMatch(/qualified marine electrician/);
   });
+
+  it("says the 150 % figure is the ceiling that protects the cable, not the fuse to fit", () => {
+    // 33 CFR 183.455(c) sets only the most a device may be rated; choosing a rating at or just above
+    // the load's draw is common practice.
+    const r = ok(base);
+    const text = r.cautions.join("\n");
+    expect(text).toMatch(/150 % of the conductor's ampacity \(33 CFR 183\.455\(c\)/);
+    expect(text).toMatch(/not the fuse to fit/);
+    expect(text).toMatch(/at or just above what the load draws[^.]*\(common practice\)/);
+    expect(text).not.toMatch(/at or below the maximum shown/);
+    // What the sizes are sized against is said once, beside the table, not again among the cautions.
+    expect(r.sizedAgainst).toMatch(/NEC Chapter 9, Table 8/);
+    expect(r.cautions).not.toContain(r.sizedAgainst);
+  });
 });
 
 describe("engine spaces (33 CFR 183.425 Table 5)", () => {
