@@ -12,7 +12,6 @@ import type { CableRunInput, SystemVoltage } from "./cable";
 import type { ClassFigures } from "./ledger";
 import {
   formatLength,
-  MAX_LENGTH_MM,
   MM_PER_FOOT,
   parseLength,
   parseWeight,
@@ -425,6 +424,16 @@ export function withRunUnit(text: string, unit: LengthUnit): string {
   return /^\s*[\d.,]+(?:\s+\d+\/\d+)?\s*$/.test(text) ? `${text.trim()} ${unit === "mm" ? "m" : "ft"}` : text;
 }
 
+/**
+ * The longest run, one way, the cable tool takes: 100 ft (30.48 m). On a boat of 20 to 25 ft the
+ * longest runs go from the panel up the mast: a masthead light or a wind instrument on a 22 ft
+ * boat is some 40 ft one way (the mast, the deck and the bilge to the panel), and a run to the
+ * bow and back aft again about as much. Past 100 ft the number is a slip of the unit (inches or
+ * millimetres typed as feet or metres), and the tool says so.
+ */
+export const MAX_CABLE_RUN_MM = 100 * MM_PER_FOOT;
+export const MAX_CABLE_RUN_TEXT = "100 ft (about 30 m)";
+
 export const SYSTEM_VOLTAGES: readonly SystemVoltage[] = [12, 24];
 export const ALLOWED_DROPS: readonly AllowedDropPct[] = [3, 10];
 
@@ -443,9 +452,8 @@ export function cableToolSchema(unit: LengthUnit) {
       length: z
         .string({ error: "How long is the run, one way from the source to the load?" })
         .transform((v, ctx) => {
-          const r = parseLength(withRunUnit(v, unit), unit);
-          if (!r.ok) return fail(ctx, r.message.replace(/Try .*$/, `Try ${unit === "mm" ? "3.4 m" : "11 ft"}.`));
-          if (r.mm > MAX_LENGTH_MM) return fail(ctx, "That is more than 10 m (about 33 ft) one way: check the number and the unit.");
+          const r = parseLength(withRunUnit(v, unit), unit, { mm: MAX_CABLE_RUN_MM, text: MAX_CABLE_RUN_TEXT });
+          if (!r.ok) return fail(ctx, r.message.replace(/Try .*$/, `Try ${unit === "mm" ? "3.4 m" : "11 ft"}.`).replace(/\. Check the number/, " one way: check the number"));
           return r.mm;
         }),
       voltage: z.coerce.number().refine((n) => n === 12 || n === 24, { message: "Choose 12 V or 24 V." }),

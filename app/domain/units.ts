@@ -293,8 +293,9 @@ function read(input: string, defaultUnit: string, q: Quantity): Read {
  * "0.5 m", "1 ft 1 1/2 in", `1' 1 1/2"`, "13-1/2", "3/4". A number without a unit is in
  * `defaultUnit`. Returns millimetres, or a message saying what is wrong.
  */
-export function parseLength(input: string, defaultUnit: LengthUnit): ParsedLength {
-  const r = read(input, defaultUnit, LENGTH);
+export function parseLength(input: string, defaultUnit: LengthUnit, limit?: { mm: number; text: string }): ParsedLength {
+  // `limit` replaces the usual 10 m for a length that may be longer (a cable run, one way).
+  const r = read(input, defaultUnit, limit ? { ...LENGTH, max: limit.mm, maxText: limit.text } : LENGTH);
   return r.ok ? { ok: true, mm: r.value } : r;
 }
 

@@ -179,12 +179,32 @@ describe("the tools' forms", () => {
     const m = cableToolSchema("mm").safeParse({ current: "30", length: "3.353", voltage: "24", drop: "10", insulation: "90", engineSpace: "true" });
     expect(m.success && m.data.oneWayLengthFt).toBeCloseTo(3353 / FT, 9);
     expect(m.success && m.data.inEngineSpace).toBe(true);
-    const bad = errorsOf(cableToolSchema("in").safeParse({ current: "lots", length: "40 ft", voltage: "36", drop: "5", insulation: "80" }));
+    const bad = errorsOf(cableToolSchema("in").safeParse({ current: "lots", length: "140 ft", voltage: "36", drop: "5", insulation: "80" }));
     expect(bad.current).toMatch(/amps/);
-    expect(bad.length).toMatch(/10 m/);
+    expect(bad.length).toBe("That is more than 100 ft (about 30 m) one way: check the number and the unit.");
     expect(bad.voltage).toMatch(/12 V or 24 V/);
     expect(bad.drop).toMatch(/3 % or 10 %/);
     expect(bad.insulation).toMatch(/temperature rating/);
+  });
+});
+
+describe("the cable tool's longest run", () => {
+  const run = (unit: "in" | "mm", length: string) => cableToolSchema(unit).safeParse({ current: "2", length, voltage: "12", drop: "3", insulation: "105" });
+
+  it("takes the runs a small boat has: a masthead light some 40 ft one way, up to 100 ft (30.48 m)", () => {
+    // A 22 ft boat (product brief): panel to masthead about 40 ft one way (common practice: mast
+    // height plus the run along the deck and bilge). 1 ft = 304.8 mm exactly (NIST Handbook 44).
+    for (const [unit, text, ft] of [["in", "40", 40], ["in", "40 ft", 40], ["in", "100 ft", 100], ["mm", "12.2", 12_200 / FT], ["mm", "30.48 m", 100]] as const) {
+      const r = run(unit, text);
+      expect(r.success, text).toBe(true);
+      expect(r.success && r.data.oneWayLengthFt, text).toBeCloseTo(ft, 9);
+    }
+  });
+
+  it("still refuses a run past 100 ft, as a slip of the unit, with the message beside the field", () => {
+    for (const [unit, text] of [["in", "101 ft"], ["in", "480"], ["mm", "31 m"], ["mm", "4000"]] as const) {
+      expect(errorsOf(run(unit, text)).length, text).toBe("That is more than 100 ft (about 30 m) one way: check the number and the unit.");
+    }
   });
 });
 
