@@ -3,6 +3,7 @@ import type { Route } from "./+types/tools.cable";
 import { CableRunResult } from "~/components/cable-run-result";
 import { buttonClass, FieldError, inputClass } from "~/components/ui/field";
 import { UnitToggle } from "~/components/unit-toggle";
+import { useRevealAnswer } from "~/components/use-reveal-answer";
 import { ALLOWED_DROPS, cableToolSchema, firstErrors, queryObject, SYSTEM_VOLTAGES, unitsFor, withRunUnit } from "~/domain/boat-forms";
 import { cableRunFormSchema } from "~/domain/calculation-forms";
 import type { CableRunStored } from "~/domain/calculations";
@@ -78,6 +79,8 @@ export async function action({ request }: Route.ActionArgs) {
 
 export default function CableTool({ loaderData, actionData }: Route.ComponentProps) {
   const { unit, form, errors, input, mine, signedIn, here } = loaderData;
+  // After "Size the cable", the answer is brought into view (on a phone it is below the form).
+  const revealOnSubmit = useRevealAnswer("cable-answer", loaderData, input !== null);
   const attachErrors: Record<string, string> = actionData && "attachErrors" in actionData ? actionData.attachErrors : {};
   const field = (name: "current" | "length" | "label", label: string, hint: string, inputMode?: "decimal") => (
     <div>
@@ -116,11 +119,11 @@ export default function CableTool({ loaderData, actionData }: Route.ComponentPro
       <header className="max-w-3xl">
         <h1 className="text-step-4 font-semibold leading-tight">Cable for a DC run</h1>
         <p className="mt-3 font-serif text-step-1 leading-relaxed text-ink-soft">
-          The conductor size a 12 or 24 V run needs, by voltage drop and by the current it carries, and the largest fuse or
-          breaker it may have. For planning: the installation follows ABYC E-11, and a qualified marine electrician has the last word.
+          The conductor size a 12 or 24 V run needs, by voltage drop and by the current it carries, and the fuse or breaker
+          that protects it. For planning: the installation follows ABYC E-11, and a qualified marine electrician has the last word.
         </p>
       </header>
-      <Form method="get" action="/tools/cable" className="space-y-5 rounded-lg bg-cloth-100 p-4 sm:p-6" aria-label="The cable run">
+      <Form method="get" action="/tools/cable" className="space-y-5 rounded-lg bg-cloth-100 p-4 sm:p-6" aria-label="The cable run" onSubmit={revealOnSubmit}>
         <input type="hidden" name="unit" value={unit} />
         <div className="flex justify-end">
           <UnitToggle unit={unit} search={(to) => toggleQuery(form, unit, to)} />
@@ -143,7 +146,7 @@ export default function CableTool({ loaderData, actionData }: Route.ComponentPro
         <button type="submit" className={buttonClass}>Size the cable</button>
       </Form>
       <section aria-labelledby="cable-answer" className="space-y-3">
-        <h2 id="cable-answer" className="text-step-2 font-semibold">The answer</h2>
+        <h2 id="cable-answer" tabIndex={-1} className="scroll-mt-4 text-step-2 font-semibold focus:outline-none">The answer</h2>
         {input ? (
           <>
             <CableRunResult input={input} unit={unit} />

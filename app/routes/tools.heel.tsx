@@ -3,6 +3,7 @@ import { Form, Link } from "react-router";
 import type { Route } from "./+types/tools.heel";
 import { SectionDrawing } from "~/components/boat-drawings";
 import { buttonClass, FieldError, inputClass } from "~/components/ui/field";
+import { useRevealAnswer } from "~/components/use-reveal-answer";
 import { db } from "~/db/index.server";
 import { firstErrors, heelToolSchema, queryObject, unitsFor } from "~/domain/boat-forms";
 import { describeHeel, formatGm, formatMoment, weightUnitFor } from "~/domain/ledger";
@@ -71,8 +72,14 @@ export default function HeelTool({ loaderData }: Route.ComponentProps) {
   const { unit, form, errors, answer, beamMm, classNote } = loaderData;
   const [find, setFind] = useState(form.find);
   const [method, setMethod] = useState(form.method);
+  // After "Work it out", the answer is brought into view (on a phone it is below the form).
+  const revealOnSubmit = useRevealAnswer("heel-answer", loaderData, answer !== null);
   const weightWord = weightUnitFor(unit) === "kg" ? "kilograms" : "pounds";
   const lengthWord = unit === "mm" ? "millimetres" : "inches";
+  // The class's light displacement is filled in; the heel is worked against the boat as she floats.
+  const displacementHint = classNote
+    ? `Light displacement is filled in: add the crew, gear, water and fuel aboard. In ${weightWord} unless you type a unit`
+    : `As she floats, with the crew, gear, water and fuel aboard; in ${weightWord} unless you type a unit`;
   const field = (name: string, label: string, hint: string) => (
     <div>
       <label htmlFor={`heel-${name}`} className="block font-medium">{label}</label>
@@ -98,7 +105,7 @@ export default function HeelTool({ loaderData }: Route.ComponentProps) {
           known weight, the boat's GM. For your own boat's whole ledger, use your boat's page (from <Link to="/account">your account</Link>).
         </p>
       </header>
-      <Form method="get" action="/tools/heel" className="space-y-5 rounded-lg bg-cloth-100 p-4 sm:p-6" aria-label="The weight moved">
+      <Form method="get" action="/tools/heel" className="space-y-5 rounded-lg bg-cloth-100 p-4 sm:p-6" aria-label="The weight moved" onSubmit={revealOnSubmit}>
         <input type="hidden" name="unit" value={unit} />
         <fieldset className="flex flex-wrap gap-4">
           <legend className="font-medium">Work out</legend>
@@ -113,7 +120,7 @@ export default function HeelTool({ loaderData }: Route.ComponentProps) {
         </fieldset>
         {classNote && <p className="text-step--1 text-ink-soft">{classNote}</p>}
         <div className="grid gap-4 sm:grid-cols-3">
-          {field("displacement", "Displacement", `As she floats, everything aboard; in ${weightWord} unless you type a unit`)}
+          {field("displacement", "Displacement", displacementHint)}
           {field("weight", "Weight moved", `In ${weightWord} unless you type a unit, e.g. 62 lb`)}
           {field("distance", "Moved across by", `In ${lengthWord} unless you type a unit, e.g. 51 in`)}
         </div>
@@ -155,7 +162,7 @@ export default function HeelTool({ loaderData }: Route.ComponentProps) {
       </Form>
 
       <section aria-labelledby="heel-answer" className="space-y-4">
-        <h2 id="heel-answer" className="text-step-2 font-semibold">The answer</h2>
+        <h2 id="heel-answer" tabIndex={-1} className="scroll-mt-4 text-step-2 font-semibold focus:outline-none">The answer</h2>
         {!answer ? (
           <p className="text-ink-soft">{Object.keys(errors).length ? "Correct the fields marked above." : "Enter the weight and how far it moves."}</p>
         ) : answer.find === "heel" ? (
@@ -192,9 +199,9 @@ export default function HeelTool({ loaderData }: Route.ComponentProps) {
           <ul className="mt-1 list-disc space-y-1 pl-5">
             {STABILITY_CAUTIONS.map((t) => <li key={t}>{t}</li>)}
           </ul>
-          <p className="mt-2">Also as JSON: <code>GET /api/heel</code> (see the README).</p>
         </aside>
       </section>
+      <p className="text-step--1 text-ink-soft">For developers: the same answer as JSON from <code>GET /api/heel</code> (see the README).</p>
     </div>
   );
 }
