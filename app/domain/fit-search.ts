@@ -222,26 +222,36 @@ function readInteger(
 
 /** GET /api/fit: length, width, height (required), unit, upright, clearance, count, hull, limit. */
 export function parseFitParams(q: URLSearchParams): ({ ok: true } & FitParams) | ParamError {
+  const r = readFitParams(q);
+  return r.ok ? r : r.problems[0];
+}
+
+/**
+ * The fit's parameters with every problem, not only the first: the fit page shows each beside
+ * its field. The problems come in the order of the parameters above (the API answers the first).
+ */
+export function readFitParams(q: URLSearchParams): ({ ok: true } & FitParams) | { ok: false; problems: ParamError[] } {
   const unit = readUnit(q);
-  if (!unit.ok) return unit;
+  if (!unit.ok) return { ok: false, problems: [unit] };
+  const problems: ParamError[] = [];
   const dims: number[] = [];
   for (const name of ["length", "width", "height"] as const) {
     const raw = q.get(name);
-    if (raw === null || raw.trim() === "") return bad(name, "required, a size such as 13 or 13 1/2.");
+    if (raw === null || raw.trim() === "") {
+      problems.push(bad(name, "required, a size such as 13 or 13 1/2."));
+      continue;
+    }
     const r = parseLength(raw, unit.unit);
-    if (!r.ok) return bad(name, r.message);
-    dims.push(r.mm);
+    if (!r.ok) problems.push(bad(name, r.message));
+    else dims.push(r.mm);
   }
   const upright = readUpright(q);
-  if (!upright.ok) return upright;
   const clearance = readClearance(q, unit.unit);
-  if (!clearance.ok) return clearance;
   const count = readInteger(q, "count", 1, MAX_COUNT, 1);
-  if (!count.ok) return count;
   const hull = readInteger(q, "hull", FIRST_HULL, LAST_HULL, null);
-  if (!hull.ok) return hull;
   const limit = readInteger(q, "limit", 1, MAX_LIMIT, DEFAULT_LIMIT);
-  if (!limit.ok) return limit;
+  for (const r of [upright, clearance, count, hull, limit]) if (!r.ok) problems.push(r);
+  if (problems.length || !upright.ok || !clearance.ok || !count.ok || !hull.ok || !limit.ok) return { ok: false, problems };
   return {
     ok: true,
     unit: unit.unit,

@@ -5,12 +5,13 @@ import { CautionList } from "~/components/cautions";
 import { DrawingKey, SpaceDrawing } from "~/components/space-drawing";
 import { buttonClass, FieldError, inputClass } from "~/components/ui/field";
 import { UnitToggle } from "~/components/unit-toggle";
+import { useRevealAnswer } from "~/components/use-reveal-answer";
 import { db } from "~/db/index.server";
 import {
-  DEFAULT_LIMIT, fitAnswerJson, parseFitParams, type FitAnswerJson, type FitResultJson,
+  DEFAULT_LIMIT, fitAnswerJson, readFitParams, type FitAnswerJson, type FitParams, type FitResultJson,
 } from "~/domain/fit-search";
 import { CLASS_NAME, describeHullRange, variantOf } from "~/domain/hulls";
-import { cautionsForItem } from "~/domain/items";
+import { cautionsForItem, isBattery } from "~/domain/items";
 import { formatLength, inchesToMm, parseLength, type Box, type LengthUnit } from "~/domain/units";
 import { listItems } from "~/models/items.server";
 import { findFittingSpaces } from "~/models/spaces.server";
@@ -66,6 +67,25 @@ function complete(form: FitForm) {
   return SIZE_FIELDS.every((f) => form[f].trim() !== "");
 }
 
+/** Whether the owner has typed any of the three sizes (then the others are asked for too). */
+function begun(form: FitForm) {
+  return SIZE_FIELDS.some((f) => form[f].trim() !== "");
+}
+
+/**
+ * Every field checked at once, with the API's reading of the parameters: the parameters to ask
+ * the API with, or every problem (each is shown beside its field). A size left empty is a problem
+ * only once `askSizes` (a size is typed, or the owner pressed "Show the spaces").
+ */
+function checkForm(form: FitForm, unit: LengthUnit, askSizes: boolean): { ok: true; params: FitParams } | { ok: false; problems: ParamProblem[] } {
+  const r = readFitParams(apiQuery(form, unit));
+  if (r.ok) return { ok: true, params: r };
+  const problems = r.problems
+    .filter((p) => askSizes || !(SIZE_FIELDS as readonly string[]).includes(p.parameter) || form[p.parameter as (typeof SIZE_FIELDS)[number]].trim() !== "")
+    .map((p) => ({ parameter: p.parameter, message: p.message }));
+  return { ok: false, problems };
+}
+
 export function meta() {
   return [
     { title: `Will it fit? · ${CLASS_NAME} · Sistership` },
@@ -91,17 +111,13 @@ export async function loader({ request }: Route.LoaderArgs) {
     hull: q.get("hull") ?? "",
   };
   let answer: FitAnswerJson | null = null;
-  let problem: ParamProblem | null = null;
-  if (complete(form)) {
-    const params = parseFitParams(apiQuery(form, unit));
-    if (params.ok) answer = fitAnswerJson(params, await findFittingSpaces(db, params));
-    else problem = { parameter: params.parameter, message: params.message };
-  }
+  const checked = checkForm(form, unit, begun(form));
+  if (checked.ok) answer = fitAnswerJson(checked.params, await findFittingSpaces(db, checked.params));
   return {
     unit,
     form,
     answer,
-    problem,
+    problems: checked.ok ? [] : checked.problems,
     items: items.map((i) => ({
       slug: i.slug,
       name: i.name,
@@ -121,6 +137,20 @@ const FIELD_LABELS: Record<string, string> = {
   hull: "Your hull number",
 };
 
+/**
+ * A problem as a sentence beside its field: the API's message without its "parameter: " prefix,
+ * and an empty size asked for by name.
+ */
+function fieldMessage(p: ParamProblem): string {
+  if (/^[a-z]+: required\b/.test(p.message)) return `Enter the ${(FIELD_LABELS[p.parameter] ?? p.parameter).toLowerCase()}, e.g. 13 or 13 1/2.`;
+  return p.message.replace(/^[a-z]+: (.)/, (_, first: string) => first.toUpperCase());
+}
+
+/** The loader asked for an empty size (the address has some sizes and not others). */
+function sizesAskedFor(data: { problems: ParamProblem[]; form: FitForm }): boolean {
+  return data.problems.some((p) => (SIZE_FIELDS as readonly string[]).includes(p.parameter) && data.form[p.parameter as (typeof SIZE_FIELDS)[number]].trim() === "");
+}
+
 /** "the length", "your hull number": a field's label inside a sentence. */
 function fieldPhrase(label: string): string {
   const lower = label.toLowerCase();
@@ -130,23 +160,21 @@ function fieldPhrase(label: string): string {
 export default function FitPage({ loaderData }: Route.ComponentProps) {
   const { unit, items, form: initial } = loaderData;
   const [form, setForm] = useState<FitForm>(initial);
-  const [live, setLive] = useState<{ problem: ParamProblem | null; fetched: boolean }>({ problem: null, fetched: false });
+  const [live, setLive] = useState<{ problems: ParamProblem[]; fetched: boolean }>({ problems: [], fetched: false });
+  // Whether an empty size is asked for while the owner types: once they pressed "Show the spaces"
+  // with it empty, or came with an address whose sizes are missing.
+  const [asked, setAsked] = useState(() => sizesAskedFor(loaderData));
   const fetcher = useFetcher<FitAnswerJson>();
   const timer = useRef<ReturnType<typeof setTimeout>>(undefined);
 
   // A navigation (the unit, the Show button, a link) brings a new form from the loader.
-  const shown = useRef(false);
   useEffect(() => {
     setForm(initial);
-    setLive({ problem: null, fetched: false });
-    // After "Show the spaces", the answer is brought into view (on a phone it is below the form).
-    if (shown.current) {
-      shown.current = false;
-      const heading = document.getElementById("results-heading");
-      heading?.scrollIntoView({ block: "start" });
-      heading?.focus({ preventScroll: true });
-    }
+    setLive({ problems: [], fetched: false });
+    setAsked(sizesAskedFor(loaderData));
   }, [initial]);
+  // After "Show the spaces", the answer is brought into view (on a phone it is below the form).
+  const revealOnSubmit = useRevealAnswer("results-heading", initial, loaderData.answer !== null);
   useEffect(() => () => clearTimeout(timer.current), []);
 
   const picked = items.find((i) => i.slug === form.item) ?? null;
@@ -156,20 +184,34 @@ export default function FitPage({ loaderData }: Route.ComponentProps) {
     if (picked?.upright && next.item === form.item) next.upright = true;
     setForm(next);
     clearTimeout(timer.current);
-    if (!complete(next)) {
-      setLive({ problem: null, fetched: true });
-      return;
-    }
-    // The same reading of the parameters as the API: a problem is shown at once, beside its field.
-    const params = parseFitParams(apiQuery(next, unit));
-    if (!params.ok) {
-      setLive({ problem: { parameter: params.parameter, message: params.message }, fetched: true });
+    // The same reading of the parameters as the API: every problem is shown at once, beside its field.
+    const checked = checkForm(next, unit, asked);
+    if (!checked.ok) {
+      setLive({ problems: checked.problems, fetched: true });
       return;
     }
     timer.current = setTimeout(() => {
-      setLive({ problem: null, fetched: true });
+      setLive({ problems: [], fetched: true });
       fetcher.load(`/api/fit?${apiQuery(next, unit)}`);
     }, 200);
+  }
+
+  function submit(event: React.FormEvent<HTMLFormElement>) {
+    // Nothing typed yet: each size is asked for beside its field (the loader would not ask).
+    if (!begun(form)) {
+      event.preventDefault();
+      setAsked(true);
+      const checked = checkForm(form, unit, true);
+      setLive({ problems: checked.ok ? [] : checked.problems, fetched: true });
+      // As after a submit that the loader answered with messages: the first field marked takes the focus.
+      requestAnimationFrame(() => {
+        const first = document.getElementById("fit-length");
+        first?.scrollIntoView({ block: "center" });
+        first?.focus({ preventScroll: true });
+      });
+      return;
+    }
+    revealOnSubmit();
   }
 
   function pick(slug: string) {
@@ -179,14 +221,18 @@ export default function FitPage({ loaderData }: Route.ComponentProps) {
     update({ item: slug, length, width, height, upright: item.upright });
   }
 
-  const problem = live.fetched ? live.problem : loaderData.problem;
-  const answer = !complete(form) || problem ? null : live.fetched ? (fetcher.data ?? loaderData.answer) : loaderData.answer;
-  const busy = fetcher.state === "loading" || (live.fetched && !fetcher.data && complete(form) && !problem);
-  // The API's message without its "parameter: " prefix, as a sentence beside the field.
-  const error = (field: string) =>
-    problem?.parameter === field ? [problem.message.replace(/^[a-z]+: (.)/, (_, first: string) => first.toUpperCase())] : undefined;
+  const problems = live.fetched ? live.problems : loaderData.problems;
+  const answer = !complete(form) || problems.length ? null : live.fetched ? (fetcher.data ?? loaderData.answer) : loaderData.answer;
+  const busy = fetcher.state === "loading" || (live.fetched && !fetcher.data && complete(form) && !problems.length);
+  const error = (field: string) => {
+    const p = problems.find((x) => x.parameter === field);
+    return p ? [fieldMessage(p)] : undefined;
+  };
   const hullVariant = /^\d+$/.test(form.hull.trim()) ? variantOf(Number(form.hull))?.label : undefined;
   const cautions = cautionsForItem(picked ? { kind: picked.kind, name: picked.name } : null);
+  // A battery's cautions (hydrogen, securing it, never above or below a fuel tank) come before the
+  // spaces, not after a long list of them; other items keep theirs at the end.
+  const cautionsFirst = picked !== null && isBattery(picked);
 
   const textField = (name: keyof typeof FIELD_LABELS, hint: string, extra: { inputMode?: "numeric" | "text"; className?: string } = {}) => (
     <div className={extra.className}>
@@ -222,7 +268,7 @@ export default function FitPage({ loaderData }: Route.ComponentProps) {
         </p>
       </header>
 
-      <Form method="get" action="/fit" className="space-y-5 rounded-lg bg-cloth-100 p-4 sm:p-6" aria-label="The item to fit" onSubmit={() => { shown.current = true; }}>
+      <Form method="get" action="/fit" className="space-y-5 rounded-lg bg-cloth-100 p-4 sm:p-6" aria-label="The item to fit" onSubmit={submit}>
         <input type="hidden" name="unit" value={unit} />
         <div className="flex flex-wrap items-end justify-between gap-4">
           <div className="min-w-0 flex-1 basis-64">
@@ -282,10 +328,12 @@ export default function FitPage({ loaderData }: Route.ComponentProps) {
       <section aria-labelledby="results-heading" className="space-y-4">
         <h2 id="results-heading" tabIndex={-1} className="scroll-mt-4 text-step-2 font-semibold focus:outline-none">Where it fits</h2>
         <div aria-live="polite" aria-busy={busy} className="space-y-1">
-          {!complete(form) ? (
+          {problems.length > 1 ? (
+            <p className="text-ink-soft">Correct the {problems.length} fields marked above to see the spaces.</p>
+          ) : problems.length === 1 ? (
+            <p className="text-ink-soft">Correct {fieldPhrase(FIELD_LABELS[problems[0].parameter] ?? problems[0].parameter)} above to see the spaces.</p>
+          ) : !complete(form) ? (
             <p className="text-ink-soft">Pick an item or type its three sizes.</p>
-          ) : problem ? (
-            <p className="text-ink-soft">Correct {fieldPhrase(FIELD_LABELS[problem.parameter] ?? problem.parameter)} above to see the spaces.</p>
           ) : answer ? (
             <p id="fit-summary">
               {results.length === 0
@@ -298,6 +346,7 @@ export default function FitPage({ loaderData }: Route.ComponentProps) {
           ) : null}
           {busy && <p className="text-step--1 text-ink-soft">Checking…</p>}
         </div>
+        {cautionsFirst && <CautionList cautions={cautions} about="figures" />}
         {answer && results.length > 0 && (
           <>
             <DrawingKey item />
@@ -308,7 +357,7 @@ export default function FitPage({ loaderData }: Route.ComponentProps) {
             </ol>
           </>
         )}
-        <CautionList cautions={cautions} about="figures" />
+        {!cautionsFirst && <CautionList cautions={cautions} about="figures" />}
       </section>
     </div>
   );

@@ -135,8 +135,10 @@ describe("a new owner looking for room for a group 31 battery", () => {
       return from <= 61 && 61 <= to;
     });
     expect(onHull61.length).toBeLessThan(seed.length);
-    await expect.poll(async () => (await page.locator("main section li > a").allTextContents()).sort())
-      .toEqual(onHull61.map((s) => s.name).sort());
+    // A hull range may be written with a hyphen or an en dash ("hulls 1-119", "hulls 1–119").
+    const dashes = (names: string[]) => names.map((n) => n.replace(/–/g, "-")).sort();
+    await expect.poll(async () => dashes(await page.locator("main section li > a").allTextContents()))
+      .toEqual(dashes(onHull61.map((s) => s.name)));
   });
 
   it("on a phone, 'Show the spaces' brings the answer into view", async () => {
@@ -153,6 +155,78 @@ describe("a new owner looking for room for a group 31 battery", () => {
       return box !== null && box.y >= 0 && box.y < 844;
     }).toBe(true);
     await phone.screenshot({ path: screenshotPath("fit-phone-answer"), fullPage: false });
+    await phone.close();
+  });
+
+  it("on a phone, a battery's cautions come before the list of spaces", async () => {
+    const phone = await browser.newPage({ viewport: { width: 390, height: 844 } });
+    watch(phone);
+    await phone.goto(`${BASE_URL}/fit?item=bci-group-31`);
+    await phone.locator("[data-testid=fit-results] > li").first().waitFor();
+    // 33 CFR 183.420: secure it, vent its hydrogen, never directly above or below a fuel tank.
+    const cautions = phone.getByRole("complementary", { name: "Before you start" });
+    expect(await cautions.textContent()).toContain("never place a battery directly above or below a fuel tank");
+    const cautionsTop = (await cautions.boundingBox())!.y;
+    const firstSpaceTop = (await phone.locator("[data-testid=fit-results] > li").first().boundingBox())!.y;
+    const headingTop = (await phone.getByRole("heading", { level: 2, name: "Where it fits" }).boundingBox())!.y;
+    expect(cautionsTop).toBeGreaterThan(headingTop);
+    expect(cautionsTop).toBeLessThan(firstSpaceTop);
+    expect(await phone.getByRole("complementary", { name: "Before you start" }).count()).toBe(1);
+    await phone.screenshot({ path: screenshotPath("fit-phone-battery-cautions"), fullPage: true, clip: { x: 0, y: headingTop, width: 390, height: 844 } });
+
+    // Something that is not a battery keeps its one caution (weight) after the list.
+    await phone.goto(`${BASE_URL}/fit?length=20&width=10&height=8`);
+    await phone.locator("[data-testid=fit-results] > li").first().waitFor();
+    const weightOnly = phone.getByRole("complementary", { name: "Before you start" });
+    expect(await weightOnly.textContent()).not.toContain("fuel tank");
+    const lastSpaceTop = (await phone.locator("[data-testid=fit-results] > li").last().boundingBox())!.y;
+    expect((await weightOnly.boundingBox())!.y).toBeGreaterThan(lastSpaceTop);
+    await phone.close();
+  });
+
+  it("on a phone, 'Show the spaces' with several slips marks each field with its own message", async () => {
+    const phone = await browser.newPage({ viewport: { width: 390, height: 844 } });
+    watch(phone);
+    await phone.goto(`${BASE_URL}/fit`);
+    await phone.waitForSelector("form[aria-label='The item to fit']");
+    await phone.waitForFunction(() => Boolean((window as { __reactRouterRouteModules?: unknown }).__reactRouterRouteModules));
+    await phone.getByLabel("Length").fill("13");
+    await phone.getByLabel("Width").fill("seven");
+    await phone.getByLabel("Your hull number").fill("999");
+    // While typing, the word and the hull are marked at once; the height is not asked for yet.
+    await phone.locator("#fit-width-error").waitFor();
+    await phone.locator("#fit-hull-error").waitFor();
+    expect(await phone.locator("#fit-height-error").count()).toBe(0);
+    await phone.getByRole("button", { name: "Show the spaces" }).click();
+    await phone.waitForURL(/hull=999/);
+    await phone.locator("#fit-height-error").waitFor();
+    // The demo class has hulls 1 to 612 (product brief).
+    expect(await phone.locator("#fit-width-error").textContent()).toMatch(/Could not read "seven" as a length/);
+    expect(await phone.locator("#fit-height-error").textContent()).toBe("Enter the height, e.g. 13 or 13 1/2.");
+    expect(await phone.locator("#fit-hull-error").textContent()).toBe("Must be a whole number from 1 to 612.");
+    expect(await phone.locator("main [aria-invalid=true]").evaluateAll((els) => els.map((e) => e.id))).toEqual(["fit-width", "fit-height", "fit-hull"]);
+    expect(await phone.getByText("Correct the 3 fields marked above to see the spaces.").count()).toBe(1);
+    // Nothing typed is lost, and the page goes to the first field marked rather than to an empty answer.
+    expect(await phone.evaluate(() => document.activeElement?.id)).toBe("fit-width");
+    expect(await phone.getByLabel("Width").inputValue()).toBe("seven");
+    expect(await phone.getByLabel("Your hull number").inputValue()).toBe("999");
+    const widthError = (await phone.locator("#fit-width-error").boundingBox())!;
+    await phone.locator("#fit-width").scrollIntoViewIfNeeded();
+    await phone.screenshot({ path: screenshotPath("fit-phone-three-slips"), fullPage: false });
+    expect(widthError.height).toBeGreaterThan(0);
+
+    // The same address opened directly marks the same three fields (no script needed to see them).
+    await phone.goto(`${BASE_URL}/fit?unit=in&item=&length=13&width=seven&height=&clearance=&count=1&hull=999`);
+    expect(await phone.locator("main [aria-invalid=true]").evaluateAll((els) => els.map((e) => e.id))).toEqual(["fit-width", "fit-height", "fit-hull"]);
+
+    // An empty form asks for the three sizes beside them when the button is pressed.
+    await phone.goto(`${BASE_URL}/fit`);
+    await phone.waitForFunction(() => Boolean((window as { __reactRouterRouteModules?: unknown }).__reactRouterRouteModules));
+    expect(await phone.locator("main [aria-invalid=true]").count()).toBe(0);
+    await phone.getByRole("button", { name: "Show the spaces" }).click();
+    await phone.locator("#fit-length-error").waitFor();
+    expect(await phone.locator("main [aria-invalid=true]").evaluateAll((els) => els.map((e) => e.id))).toEqual(["fit-length", "fit-width", "fit-height"]);
+    await expect.poll(() => phone.evaluate(() => document.activeElement?.id)).toBe("fit-length");
     await phone.close();
   });
 

@@ -3,7 +3,7 @@ import { bciGroup } from "~/domain/battery-groups";
 import { placeRow, rankSpaces, type Box, type Space } from "~/domain/fit";
 import {
   candidateCorner, candidateRegions, CANDIDATE_SLACK_MM, describePlacement, fitAnswerJson, fitOpening, fitSections, inUnit,
-  parseCheckParams, parseClearance, parseFitParams,
+  parseCheckParams, parseClearance, parseFitParams, readFitParams,
 } from "~/domain/fit-search";
 import { drawSpace } from "~/domain/drawing";
 
@@ -66,6 +66,27 @@ describe("parseFitParams (GET /api/fit)", () => {
       expect(r.parameter).toBe(parameter);
       expect(r.message.startsWith(`${parameter}: `)).toBe(true);
     }
+  });
+});
+
+describe("readFitParams (the fit page: every field checked at once)", () => {
+  it("names every parameter that is wrong, in the order of the form, not only the first", () => {
+    // Width a word, height empty, a hull past the last of the demo class (hulls 1-612), a count of 0.
+    const r = readFitParams(q("length=13&width=seven&height=&hull=999&count=0&clearance=6"));
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    expect(r.problems.map((p) => p.parameter)).toEqual(["width", "height", "clearance", "count", "hull"]);
+    expect(r.problems.find((p) => p.parameter === "width")?.message).toMatch(/^width: Could not read "seven" as a length/);
+    expect(r.problems.find((p) => p.parameter === "hull")?.message).toBe("hull: must be a whole number from 1 to 612.");
+  });
+
+  it("the API still answers with the first of them", () => {
+    expect(parseFitParams(q("length=13&width=seven&height=&hull=999"))).toMatchObject({ ok: false, parameter: "width" });
+  });
+
+  it("reads a good query as parseFitParams does", () => {
+    const query = q("length=13&width=6 13/16&height=9 7/16&upright=true&clearance=1/2&count=2&hull=402");
+    expect(readFitParams(query)).toEqual(parseFitParams(query));
   });
 });
 
