@@ -29,3 +29,27 @@ export function creditWithoutHulls(credit: string): string {
 export function typesetHullRanges(name: string): string {
   return name.replace(/\b(hulls?\s+\d+)\s*-\s*(\d+)\b/gi, "$1–$2");
 }
+
+/**
+ * The sentence above the register of spaces, saying which filter applies. A hull number is the
+ * more exact of the two, so when both are given the hull number applies and the variant is set
+ * aside, and the sentence says so:
+ * "13 spaces on hull 318 (Mk II); the variant chosen (Mk I) is set aside while a hull number is given."
+ */
+export function describeSpaceFilter(f: {
+  count: number;
+  /** A valid hull number, or null. */
+  hull: number | null;
+  /** The variant the hull belongs to ("Mk II"), if any. */
+  hullVariant: string | null;
+  /** The variant chosen: its label ("Mk I") and hulls; null for all hulls. */
+  variant: { label: string; from: number; to: number } | null;
+}): string {
+  const spaces = `${f.count} ${f.count === 1 ? "space" : "spaces"}`;
+  if (f.hull !== null) {
+    const on = `${spaces} on hull ${f.hull}${f.hullVariant ? ` (${f.hullVariant})` : ""}`;
+    return f.variant ? `${on}; the variant chosen (${f.variant.label}) is set aside while a hull number is given.` : `${on}.`;
+  }
+  if (f.variant) return `${spaces} on ${f.variant.label} (hulls ${f.variant.from}–${f.variant.to}).`;
+  return `${spaces}.`;
+}

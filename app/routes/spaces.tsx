@@ -5,7 +5,7 @@ import { UnitToggle } from "~/components/unit-toggle";
 import { db } from "~/db/index.server";
 import { describeBox } from "~/domain/fit-search";
 import { CLASS_NAME, describeHullRange, FIRST_HULL, LAST_HULL, VARIANTS, variantOf } from "~/domain/hulls";
-import { typesetHullRanges } from "~/domain/space-words";
+import { describeSpaceFilter, typesetHullRanges } from "~/domain/space-words";
 import { formatLength } from "~/domain/units";
 import { listSpaces } from "~/models/spaces.server";
 import { readerUnit } from "./reader-unit.server";
@@ -30,7 +30,8 @@ export async function loader({ request }: Route.LoaderArgs) {
   const hull = hullNumber !== null && hullNumber >= FIRST_HULL && hullNumber <= LAST_HULL ? hullNumber : null;
   const hullError = hullText !== "" && hull === null ? `Hull numbers run from ${FIRST_HULL} to ${LAST_HULL}.` : null;
   const variant = VARIANTS.find((v) => v.key === variantKey) ?? null;
-  const spaces = await listSpaces(db, { hull, range: variant });
+  // A hull number is more exact than a variant: when both are given, the hull number applies.
+  const spaces = await listSpaces(db, hull !== null ? { hull } : { range: variant });
 
   const zones: { slug: string; name: string; spaces: ReturnType<typeof row>[] }[] = [];
   function row(sp: (typeof spaces)[number]) {
@@ -56,13 +57,19 @@ export async function loader({ request }: Route.LoaderArgs) {
     unit,
     zones,
     count: spaces.length,
-    filter: { hull: hullText, variant: variant?.key ?? "", hullError, hullVariant: hull ? (variantOf(hull)?.label ?? "") : "" },
+    filter: { hull: hullText, variant: variant?.key ?? "", hullError },
+    summary: describeSpaceFilter({
+      count: spaces.length,
+      hull,
+      hullVariant: hull !== null ? (variantOf(hull)?.label ?? null) : null,
+      variant: variant ? { label: variant.label, from: variant.from, to: variant.to } : null,
+    }),
     variants: VARIANTS.map((v) => ({ key: v.key, label: `${v.label} (hulls ${v.from}–${v.to})` })),
   };
 }
 
 export default function SpacesPage({ loaderData }: Route.ComponentProps) {
-  const { unit, zones, count, filter, variants } = loaderData;
+  const { unit, zones, summary, filter, variants } = loaderData;
   return (
     <div className="space-y-8">
       <header className="max-w-3xl">
@@ -99,10 +106,7 @@ export default function SpacesPage({ loaderData }: Route.ComponentProps) {
         <div className="ml-auto"><UnitToggle unit={unit} /></div>
       </Form>
 
-      <p className="text-ink-soft" aria-live="polite">
-        {count} {count === 1 ? "space" : "spaces"}
-        {filter.hull && !filter.hullError ? ` on hull ${filter.hull}${filter.hullVariant ? ` (${filter.hullVariant})` : ""}` : ""}.
-      </p>
+      <p className="text-ink-soft" aria-live="polite" data-summary>{summary}</p>
 
       {zones.map((zone) => (
         <section key={zone.slug} aria-labelledby={`zone-${zone.slug}`}>

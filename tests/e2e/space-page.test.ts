@@ -6,6 +6,7 @@
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { BASE_URL, keepEvidenceOnFailure, launchBrowser, screenshotPath } from "../support/browser";
+import { hullRangeOf, readSeedSpaces } from "../support/seed-spaces";
 
 let browser: Browser;
 let context: BrowserContext | undefined;
@@ -194,6 +195,32 @@ describe("hull ranges in the names of spaces", () => {
     expect(names.join("\n")).not.toMatch(/hulls \d+-\d+/);
     const q = await open(PHONE, "/spaces/starboard-settee-aft-late-mk1");
     expect(await q.getByRole("heading", { level: 1 }).innerText()).toBe("Under the starboard settee, aft bay (hulls 120–298)");
+  });
+});
+
+describe("the register of spaces, filtered", () => {
+  beforeEach(keepEvidenceOnFailure("space-page", () => page));
+  // Counted here from content-seed/spaces.yaml: a space is on a hull when its range holds it, on a
+  // variant when its range meets the variant's (Mk I: hulls 1-298, the demo class's split).
+  const seed = readSeedSpaces().map((x) => hullRangeOf(x.appliesTo));
+  const onHull318 = seed.filter(([from, to]) => from <= 318 && 318 <= to).length;
+  const onMk1 = seed.filter(([from]) => from <= 298).length;
+
+  it("with a hull number and a variant, the hull number applies and the variant is said to be set aside", async () => {
+    const p = await open(PHONE, "/spaces?hull=318&variant=mk1");
+    expect(await p.locator("main p[aria-live=polite]").innerText()).toBe(
+      `${onHull318} spaces on hull 318 (Mk II); the variant chosen (Mk I) is set aside while a hull number is given.`,
+    );
+    expect(await p.locator("main li a[href^='/spaces/']").count()).toBe(onHull318);
+    // What was chosen stays in the form.
+    expect(await p.inputValue("#hull")).toBe("318");
+    expect(await p.inputValue("#variant")).toBe("mk1");
+  });
+
+  it("a variant alone is named in the count", async () => {
+    const p = await open(PHONE, "/spaces?variant=mk1");
+    expect(await p.locator("main p[aria-live=polite]").innerText()).toBe(`${onMk1} spaces on Mk I (hulls 1–298).`);
+    expect(await p.locator("main li a[href^='/spaces/']").count()).toBe(onMk1);
   });
 });
 
