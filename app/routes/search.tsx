@@ -195,25 +195,25 @@ function SearchForm({
       </div>
       <details className="mt-3 text-step--1" open={Boolean(params.get("hull") || fit.text)}>
         <summary className="cursor-pointer font-medium text-deep-700">My hull, and what must fit</summary>
-        <div className="mt-3 flex flex-wrap items-end gap-4">
-          <div>
+        <div className="mt-3 flex flex-wrap items-start gap-4">
+          <div className="w-full sm:w-60">
             <label htmlFor="search-hull" className="block font-medium text-ink">Applies to hull</label>
             <input
               id="search-hull" name="hull" defaultValue={params.get("hull") ?? ""} placeholder="147, mk1 or 120-298"
               aria-invalid={errors.hull ? true : undefined}
               aria-describedby={errors.hull ? "search-hull-error search-hull-hint" : "search-hull-hint"}
-              className={`${inputClass} w-48`}
+              className={inputClass}
             />
             <FieldError id="search-hull-error" errors={errors.hull ? [errors.hull] : undefined} />
             <p id="search-hull-hint" className="mt-1 text-ink-soft">A hull number, Mk I / Mk II, or a range.</p>
           </div>
-          <div>
+          <div className="w-full sm:w-72">
             <label htmlFor="search-fit" className="block font-medium text-ink">Must fit (length × width × height)</label>
             <input
               id="search-fit" name="fit" defaultValue={fit.text} placeholder="13 x 7 x 9 1/2"
               aria-invalid={errors.fit ? true : undefined}
               aria-describedby={errors.fit ? "search-fit-error search-fit-hint" : "search-fit-hint"}
-              className={`${inputClass} w-56`}
+              className={inputClass}
             />
             <FieldError id="search-fit-error" errors={errors.fit ? [errors.fit] : undefined} />
             <p id="search-fit-hint" className="mt-1 text-ink-soft">Spaces it fits, through their opening, and the write-ups that used them.</p>
@@ -225,11 +225,11 @@ function SearchForm({
               <option value="mm">mm</option>
             </select>
           </div>
-          <label className="flex items-center gap-2 pb-3 font-medium text-ink">
+          <label className="flex items-center gap-2 font-medium text-ink sm:mt-8">
             <input type="checkbox" name="upright" value="true" defaultChecked={fit.upright} className="size-5 accent-deep-700" />
             Upright only
           </label>
-          <button type="submit" className={quietButtonClass}>Apply</button>
+          <button type="submit" className={`${quietButtonClass} sm:mt-6`}>Apply</button>
         </div>
       </details>
     </Form>
@@ -293,7 +293,7 @@ function Results({ d, params, leftOut }: { d: ResultsData; params: URLSearchPara
           {answer.suggestion && (
             <p className="mt-2 font-medium">
               Did you mean{" "}
-              <Link to={searchHref(params, { q: answer.suggestion, fit: params.get("fit") })} className="italic">{answer.suggestion}</Link>?
+              <Link to={searchHref(params, { q: answer.suggestion, fit: params.get("fit"), typed: null })} className="italic">{answer.suggestion}</Link>?
             </p>
           )}
           {answer.matched === "any" && (
@@ -321,7 +321,10 @@ function Results({ d, params, leftOut }: { d: ResultsData; params: URLSearchPara
         ))}
         {pages > 1 && !d.beyond && <Pager page={d.page} pages={pages} params={params} />}
       </div>
-      <FacetPanel facets={facets} active={active} params={params} leftOut={leftOut} />
+      {/* Nothing to narrow when nothing was found and no filter is set. */}
+      {(answer.total > 0 || d.filtered || leftOut.system || leftOut.zone) && (
+        <FacetPanel facets={facets} active={active} params={params} leftOut={leftOut} />
+      )}
     </div>
   );
 }

@@ -102,8 +102,25 @@ describe("the search page on a phone", () => {
     expect((await resultTitles()).length).toBeGreaterThan(0);
     await page.screenshot({ path: screenshotPath("search-phone-corrected"), fullPage: false });
     await Promise.all([page.waitForURL(/typed=1/), note.getByRole("link", { name: "chianplates" }).click()]);
+    // A client navigation: the URL changes before the new page is drawn.
+    await expect.poll(() => page.getByText("Did you mean").count()).toBe(1);
     expect(await page.locator("#search-corrected").count()).toBe(0);
-    expect(await page.getByText("Did you mean").count()).toBe(1);
+  });
+
+  it("on a desktop, shows the message under the hull field and a quoted query quoted once", async () => {
+    const desk = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    try {
+      const p = await desk.newPage();
+      p.on("pageerror", (e) => errors.push(e.message));
+      await p.goto(`${BASE_URL}/search?q=%22house+battery%22&hull=999`);
+      expect(await p.locator("h1").textContent()).toBe("Write-ups, spaces and items matching “house battery”");
+      await p.screenshot({ path: screenshotPath("search-desk-hull-999-quoted"), fullPage: false });
+      const [field, message] = [await p.locator("#search-hull").boundingBox(), await p.locator("#search-hull-error").boundingBox()];
+      expect(message!.y - (field!.y + field!.height)).toBeLessThan(16);
+      expect(Math.abs(message!.x - field!.x)).toBeLessThan(2);
+    } finally {
+      await desk.close();
+    }
   });
 
   it("raised no script error", () => {

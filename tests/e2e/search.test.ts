@@ -122,7 +122,7 @@ describe("with JavaScript", () => {
     // Hull 147 is a Mk I: the Mk II write-up goes, the one for hulls 120-298 stays.
     expect(titles).toContain("Group 27 battery moved under the starboard settee");
     expect(titles).not.toContain("Correcting a starboard list by moving the second battery to the port berth (Mk II)");
-    expect(await page.getByRole("list", { name: "Narrowed by" }).textContent()).toMatch(/System: Electrical.*Applies to Hull 147/);
+    expect(await page.getByRole("list", { name: "Narrowed by" }).textContent()).toMatch(/System: Electrical.*Applies to hull 147/);
     await page.screenshot({ path: screenshotPath("search-narrowed"), fullPage: true });
   });
 
@@ -161,11 +161,15 @@ describe("with JavaScript", () => {
     await page.screenshot({ path: screenshotPath("search-markup-as-text") });
   });
 
-  it("explains the syntax when nothing is found, and offers a correction", async () => {
+  it("shows what the correction finds; the words as typed explain the syntax and offer the correction", async () => {
     await page.goto(`${BASE_URL}/search?q=chianplates`);
+    await page.getByText("Showing results for chainplates.").waitFor();
+    expect(await resultTitles(page)).toContain("Chainplates pulled, one replaced, all re-bedded in butyl; new shrouds");
+    await page.getByRole("link", { name: "chianplates" }).click();
+    await page.waitForURL("**/search?q=chianplates&typed=1");
     await page.getByText("Nothing published matches that search yet.").waitFor();
     await page.getByRole("heading", { name: "How to search" }).waitFor();
-    await page.getByRole("link", { name: "chainplates" }).click();
+    await page.locator("main").getByRole("link", { name: "chainplates" }).click();
     await page.waitForURL("**/search?q=chainplates");
     expect(await resultTitles(page)).toContain("Chainplates pulled, one replaced, all re-bedded in butyl; new shrouds");
     expect(errors).toEqual([]);
