@@ -18,9 +18,10 @@ export const CAUTIONS: Record<string, Caution> = {
     key: "wiring",
     title: "Wiring",
     text:
-      "Protect every conductor with a fuse or breaker close to its source of power, sized for the conductor, not the load. " +
+      "Protect every conductor with a fuse or breaker close to its source of power. Its rating may never exceed what the conductor allows (150 % of its ampacity under 50 V); " +
+      "within that ceiling, pick a rating at or just above what the load draws (common practice). " +
       "Undersized cable overheats; a short circuit at a battery can start a fire. Follow ABYC E-11 for DC systems, or have a qualified marine electrician do or check the work.",
-    source: "33 CFR 183.455; ABYC E-11",
+    source: "33 CFR 183.455; ABYC E-11; the rating near the load's draw: common practice",
   },
   stability: {
     key: "stability",

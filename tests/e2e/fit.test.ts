@@ -166,6 +166,9 @@ describe("a new owner looking for room for a group 31 battery", () => {
     // 33 CFR 183.420: secure it, vent its hydrogen, never directly above or below a fuel tank.
     const cautions = phone.getByRole("complementary", { name: "Before you start" });
     expect(await cautions.textContent()).toContain("never place a battery directly above or below a fuel tank");
+    // The wiring caution tells the ceiling (33 CFR 183.455(c): 150 % of the ampacity) from the fuse to fit.
+    expect(await cautions.textContent()).toContain("Its rating may never exceed what the conductor allows (150 % of its ampacity under 50 V)");
+    expect(await cautions.textContent()).toContain("pick a rating at or just above what the load draws (common practice)");
     const cautionsTop = (await cautions.boundingBox())!.y;
     const firstSpaceTop = (await phone.locator("[data-testid=fit-results] > li").first().boundingBox())!.y;
     const headingTop = (await phone.getByRole("heading", { level: 2, name: "Where it fits" }).boundingBox())!.y;
@@ -277,7 +280,8 @@ describe("a member adding a measurement from a phone", () => {
       const lastRow = await page.locator("#measurements tbody tr").last().textContent();
       expect(lastRow).toContain("Story stick");
       expect(lastRow).toContain("402");
-      const thumb = page.locator("#measurements tbody tr").last().locator('img[src^="/media/photos/"]');
+      // The row lays out its photo once for a phone and once for a wide screen: the one shown here.
+      const thumb = page.locator("#measurements tbody tr").last().locator('img[src^="/media/photos/"]:visible');
       await thumb.scrollIntoViewIfNeeded();
       await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0)).toBe(true);
       // This member reads millimetres; the consensus length is unchanged: 28.745 in x 25.4 = 730.1 mm (by hand).
