@@ -186,9 +186,10 @@ export default function CableTool({ loaderData, actionData }: Route.ComponentPro
           </p>
         )}
         <p className="text-step--1 text-ink-soft">
-          Also as JSON: <code>GET /api/cable</code> (see the README). For where a battery can go, see <Link to="/fit">Will it fit?</Link>
+          For where a battery can go, see <Link to="/fit">Will it fit?</Link>
         </p>
       </section>
+      <p className="text-step--1 text-ink-soft">For developers: the same answer as JSON from <code>GET /api/cable</code> (see the README).</p>
     </div>
   );
 }

@@ -123,6 +123,10 @@ describe("the cable calculator on a phone", () => {
     expect(answerText!.split("Marine SAE-sized cable has less copper").length - 1).toBe(1);
     expect(answerText).not.toContain("widely reproduced");
     await page.locator("[data-calculation=cable-run]").screenshot({ path: screenshotPath("tools-cable-phone-fuse") });
+    // The note for developers is a line of its own at the end of the page, not in the answer or its cautions.
+    expect(answerText).not.toContain("/api/cable");
+    expect(await page.locator("section[aria-labelledby='cable-answer']").textContent()).not.toContain("/api/cable");
+    expect(await page.locator("main").getByText("GET /api/cable").count()).toBe(1);
   });
 
   it("refuses a run past 100 ft beside the field, and keeps what was typed", async () => {
