@@ -118,6 +118,8 @@ describe("with JavaScript", () => {
     await page.getByLabel("Applies to hull").fill("147");
     await page.getByRole("button", { name: "Apply" }).click();
     await page.waitForURL(/hull=147/);
+    // A client navigation: the address changes before the new results are drawn.
+    await expect.poll(() => page.getByRole("list", { name: "Narrowed by" }).textContent()).toMatch(/Applies to hull 147/);
     const titles = await resultTitles(page);
     // Hull 147 is a Mk I: the Mk II write-up goes, the one for hulls 120-298 stays.
     expect(titles).toContain("Group 27 battery moved under the starboard settee");
@@ -171,7 +173,7 @@ describe("with JavaScript", () => {
     await page.getByRole("heading", { name: "How to search" }).waitFor();
     await page.locator("main").getByRole("link", { name: "chainplates" }).click();
     await page.waitForURL("**/search?q=chainplates");
-    expect(await resultTitles(page)).toContain("Chainplates pulled, one replaced, all re-bedded in butyl; new shrouds");
+    await expect.poll(() => resultTitles(page)).toContain("Chainplates pulled, one replaced, all re-bedded in butyl; new shrouds");
     expect(errors).toEqual([]);
   });
 });
