@@ -26,7 +26,16 @@ export async function loader({ request }: Route.LoaderArgs) {
   const user = await getUser(request);
   const unit = await readerUnit(request, user);
   const params = url.searchParams.toString();
-  const parsed = parseSearchParams(url.searchParams, "page");
+  // A system or zone that is not even the shape of one ("Electrical Things") is left out like one
+  // the class does not have: the rest of the search is read without it.
+  const readable = new URLSearchParams(url.searchParams);
+  const unreadTags: { system?: string; zone?: string } = {};
+  let parsed = parseSearchParams(readable, "page");
+  while (!parsed.ok && (parsed.parameter === "system" || parsed.parameter === "zone") && unreadTags[parsed.parameter] === undefined) {
+    unreadTags[parsed.parameter] = readable.get(parsed.parameter) ?? "";
+    readable.delete(parsed.parameter);
+    parsed = parseSearchParams(readable, "page");
+  }
   const base = {
     params, unit, q: url.searchParams.get("q") ?? "",
     fitText: url.searchParams.get("fit") ?? "",
@@ -55,6 +64,8 @@ export async function loader({ request }: Route.LoaderArgs) {
     leftOut.zone = { typed: req.filters.zone, choices: taxonomy.zones };
     req.filters.zone = null;
   }
+  if (unreadTags.system !== undefined) leftOut.system = { typed: unreadTags.system, choices: taxonomy.systems };
+  if (unreadTags.zone !== undefined) leftOut.zone = { typed: unreadTags.zone, choices: taxonomy.zones };
   const status = Object.keys(leftOut).length ? 400 : 200;
   if (!req.q && !hasFilters(req.filters)) return data({ ...base, leftOut, state: "start" as const }, { status });
   // Punctuation alone ("!!!") has nothing to look for: it must not list everything.
@@ -101,7 +112,8 @@ export async function loader({ request }: Route.LoaderArgs) {
 }
 
 export function meta({ loaderData }: Route.MetaArgs) {
-  const q = loaderData?.q?.trim();
+  // The words the results are for (a corrected search's correction), else the words typed.
+  const q = (loaderData?.state === "results" ? loaderData.words : loaderData?.q)?.trim();
   return [
     { title: q ? `${queryInQuotes(q)} · Sistership search` : "Search · Sistership" },
     { name: "description", content: `Search the ${CLASS_NAME} owners' write-ups, measured spaces and catalogue items.` },

@@ -187,6 +187,18 @@ describe("a system or zone the class does not have", () => {
     expect(textOf(systemSection)).toContain("There is no system “nope”. The systems are:");
     for (const s of systems) expect(systemSection).toContain(`href="/search?q=battery&amp;system=${s.slug}"`);
     expect(page.text).not.toContain("There is no such system.");
+    expect(page.text).toContain("This search is for every system");
+  });
+
+  it("treats a system or zone that is not even the shape of one the same way", async () => {
+    const without = await load("q=battery");
+    const page = await render("q=battery&system=Electrical+Things&zone=%3Cb%3E");
+    expect(page.status).toBe(400);
+    expect(page.data.state).toBe("results");
+    expect(titles(page.data)).toEqual(titles(without.data));
+    expect(page.text).toContain("There is no system “Electrical Things”. The systems are:");
+    expect(page.text).toContain("There is no zone “&lt;b&gt;”. The zones are:"); // shown as text, not markup
+    expect(page.html).not.toContain("<b>");
   });
 });
 
