@@ -429,10 +429,10 @@ export default function SpacePage({ loaderData, actionData }: Route.ComponentPro
 /** The measurements of one part of the space, with their consensus and spread. */
 function PartMeasurements({ part, many, unit }: { part: Part; many: boolean; unit: LengthUnit }) {
   const { measurements, consensus } = part;
-  const withPhotos = measurements.some((m) => m.photo);
   const headingId = `part-${part.position}-heading`;
-  // On a phone the table has four columns: who, when, how and the photo sit in the first one,
-  // under the member's credit, so the three sizes and their flags stay in view (390 px wide).
+  // On a phone the table has four columns: hull, tool and date sit in the first one, under the
+  // member's credit, so the three sizes and their flags stay in view (390 px wide). The photo is
+  // under the credit at every width.
   return (
     <div aria-labelledby={many ? headingId : undefined} role={many ? "group" : undefined} className="space-y-2">
       {many && <h3 id={headingId} className="text-step-1 font-semibold">{part.label[0].toUpperCase() + part.label.slice(1)}</h3>}
@@ -453,7 +453,6 @@ function PartMeasurements({ part, many, unit }: { part: Part; many: boolean; uni
                     {AXIS_HEADINGS[a]}<span className="sm:hidden">, {unit}</span>
                   </th>
                 ))}
-                {withPhotos && <th scope="col" className="hidden py-1 font-medium sm:table-cell">Photo</th>}
               </tr>
             </thead>
             <tbody>
@@ -466,7 +465,7 @@ function PartMeasurements({ part, many, unit }: { part: Part; many: boolean; uni
                     <span className="block text-ink-soft sm:hidden">hull {m.hull} · {m.method}</span>
                     <span className="block text-ink-soft tabular-nums sm:hidden">{m.date}</span>
                     {m.photo && (
-                      <a href={m.photo.url} className="mt-1 block sm:hidden">
+                      <a href={m.photo.url} className="mt-1 block w-fit">
                         <img src={m.photo.thumb} alt={`Photo of the measurement on hull ${m.hull}`} className="h-12 w-16 rounded-sm object-cover" loading="lazy" />
                       </a>
                     )}
@@ -493,15 +492,6 @@ function PartMeasurements({ part, many, unit }: { part: Part; many: boolean; uni
                       ) : <span className="whitespace-nowrap"><Length text={cell.text} /></span>}
                     </td>
                   ))}
-                  {withPhotos && (
-                    <td className="hidden py-1.5 sm:table-cell">
-                      {m.photo && (
-                        <a href={m.photo.url}>
-                          <img src={m.photo.thumb} alt={`Photo of the measurement on hull ${m.hull}`} className="h-12 w-16 rounded-sm object-cover" loading="lazy" />
-                        </a>
-                      )}
-                    </td>
-                  )}
                 </tr>
               ))}
             </tbody>
@@ -511,13 +501,11 @@ function PartMeasurements({ part, many, unit }: { part: Part; many: boolean; uni
                   <th scope="row" className="py-1.5 pr-2 text-left sm:hidden">Consensus (median)</th>
                   <th scope="row" colSpan={4} className="hidden py-1.5 pr-3 text-left sm:table-cell">Consensus (median)</th>
                   {consensus.map((d) => <td key={d.axis} className="py-1.5 pr-1 text-right whitespace-nowrap tabular-nums sm:pr-2" data-consensus={d.axis}><Length text={d.value} /></td>)}
-                  {withPhotos && <td className="hidden sm:table-cell" />}
                 </tr>
                 <tr className="text-ink-soft">
                   <th scope="row" className="py-1 pr-2 text-left font-normal sm:hidden">Spread (largest − smallest)</th>
                   <th scope="row" colSpan={4} className="hidden py-1 pr-3 text-left font-normal sm:table-cell">Spread (largest − smallest)</th>
                   {consensus.map((d) => <td key={d.axis} className="py-1 pr-1 text-right whitespace-nowrap tabular-nums sm:pr-2" data-spread={d.axis}><Length text={d.spread} /></td>)}
-                  {withPhotos && <td className="hidden sm:table-cell" />}
                 </tr>
               </tfoot>
             )}
