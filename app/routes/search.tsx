@@ -483,7 +483,7 @@ function FacetList({
             <li key={o.value}>
               {on ? (
                 <span aria-current="true" className="flex justify-between gap-2 rounded bg-deep-700 px-2 py-1 font-medium text-cloth-50">
-                  <span>{o.label}</span>{counted && <span>{o.count}</span>}
+                  <span>{o.label}</span>{counted && <span>({o.count})</span>}
                 </span>
               ) : (
                 <Link to={searchHref(params, { [param]: o.value })} aria-label={label} className="flex justify-between gap-2 rounded px-2 py-1 hover:bg-cloth-100">

@@ -107,6 +107,20 @@ describe("the search page on a phone", () => {
     expect(await page.locator("#search-corrected").count()).toBe(0);
   });
 
+  it("offers the filters from beside the count, in the first screen of results", async () => {
+    await page.goto(`${BASE_URL}/search?q=battery&hull=318`);
+    expect(await page.locator("ul[aria-label='Narrowed by']").textContent()).toContain("Applies to hull 318");
+    const jump = page.locator("#search-jump-narrow");
+    const box = await jump.boundingBox();
+    expect(box!.y + box!.height).toBeLessThan(844 * 1.5); // within about a screen and a half of the top, not after every result
+    await jump.scrollIntoViewIfNeeded();
+    await page.screenshot({ path: screenshotPath("search-phone-jump-link"), fullPage: false });
+    await jump.click();
+    await expect.poll(async () => (await page.locator("#narrow h2").boundingBox())?.y ?? -1).toBeLessThan(100);
+    expect(await page.locator("#narrow h2").boundingBox()).not.toBeNull();
+    await page.screenshot({ path: screenshotPath("search-phone-after-jump"), fullPage: false });
+  });
+
   it("on a desktop, shows the message under the hull field and a quoted query quoted once", async () => {
     const desk = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     try {

@@ -155,6 +155,9 @@ describe("the page's words", () => {
     expect(some.length).toBeGreaterThan(0);
     for (const k of some) expect(aside).toContain(`(${k.count})`);
     expect(aside).not.toMatch(/<span>0<\/span>/);
+    // The choice in force shows its count as the others do, in brackets.
+    const chosen = facets.hulls.find((h: { value: string }) => h.value === "318");
+    expect(textOf(/<span aria-current="true"[^>]*>[\s\S]*?<\/span><\/span>/.exec(aside)?.[0] ?? "").trim()).toBe(`Hull 318(${chosen.count})`); // two spans, side by side
     const labels = { writeup: "Write-ups", space: "Spaces", item: "Catalogue items" } as Record<string, string>;
     for (const k of zero) expect(aside).not.toContain(`aria-label="${labels[k.value]} (0)"`);
   });
