@@ -215,6 +215,8 @@ describe("the register of spaces, filtered", () => {
     // What was chosen stays in the form.
     expect(await p.inputValue("#hull")).toBe("318");
     expect(await p.inputValue("#variant")).toBe("mk1");
+    await p.locator("main p[aria-live=polite]").scrollIntoViewIfNeeded();
+    await p.screenshot({ path: screenshotPath("space-page-phone-register-318-mk1"), fullPage: false });
   });
 
   it("a variant alone is named in the count", async () => {
