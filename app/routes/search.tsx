@@ -253,11 +253,12 @@ type ResultsData = Extract<Route.ComponentProps["loaderData"], { state: "results
 function Results({ d, params, leftOut }: { d: ResultsData; params: URLSearchParams; leftOut: LeftOutFilters }) {
   const { answer, facets, active } = d;
   const pages = pageCount(answer.total);
-  // Each kind's results together: the write-ups (the known fixes) first, then the other kinds in
-  // the order of their best result on this page.
+  // Each kind's results together: the write-ups (the known fixes) first, or, when something must
+  // fit, the spaces that take it; then the other kinds in the order of their best result on this page.
+  const lead: SearchKind = active.fit ? "space" : "writeup";
   const byKind = SEARCH_KINDS.map((k) => ({ kind: k, results: answer.results.filter((r) => r.type === k) }))
     .filter((g) => g.results.length)
-    .sort((a, b) => Number(b.kind === "writeup") - Number(a.kind === "writeup") || answer.results.indexOf(a.results[0]) - answer.results.indexOf(b.results[0]));
+    .sort((a, b) => Number(b.kind === lead) - Number(a.kind === lead) || answer.results.indexOf(a.results[0]) - answer.results.indexOf(b.results[0]));
   const kindCount = (k: SearchKind) => facets.kinds.find((x) => x.value === k)?.count ?? 0;
   const first = (d.page - 1) * PAGE_SIZE + 1;
   return (

@@ -220,3 +220,18 @@ describe("a query that finds nothing, with a 'did you mean' that finds something
     expect(page.html).toContain('href="/search?q=chianplates&amp;typed=1"');
   });
 });
+
+describe("the order of the kinds on a page", () => {
+  it("puts the write-ups first for words, and the spaces that take the box first when something must fit", async () => {
+    // Each kind's group of results has a heading with the id group-<kind>.
+    const heading = (html: string, kind: string) => html.indexOf(`id="group-${kind}"`);
+    const words = await render("q=battery");
+    expect(heading(words.html, "space")).toBeGreaterThan(-1);
+    expect(heading(words.html, "writeup")).toBeGreaterThan(-1);
+    expect(heading(words.html, "writeup")).toBeLessThan(heading(words.html, "space"));
+    const sized = await render(`q=${encodeURIComponent("what fits 13 x 7 x 9 1/2 in upright")}`);
+    expect(heading(sized.html, "writeup")).toBeGreaterThan(-1);
+    expect(heading(sized.html, "space")).toBeGreaterThan(-1);
+    expect(heading(sized.html, "space")).toBeLessThan(heading(sized.html, "writeup"));
+  });
+});
