@@ -25,5 +25,10 @@ export function loader({ request }: Route.LoaderArgs) {
     orientation: orientationJson(section.placement),
     clearances: boxInUnit(section.leftoverMm, params.unit),
     inARow: section.row?.count ?? 0,
+    // How the items of that row lie (it may differ from `orientation`, the placement of one item):
+    // null when fewer than two fit.
+    row: section.row && section.row.count > 1
+      ? { count: section.row.count, along: section.row.axis, orientation: orientationJson(section.row.placement) }
+      : null,
   });
 }

@@ -120,6 +120,19 @@ describe("GET /api/fit/check", () => {
     expect(tight.body.clearances.length).toBe(0.4375); // 12 1/2 - 12 1/16 = 7/16 in < 1/2 in needed
   });
 
+  it("says how the items of the longest row lie, when that is not how one item lies", async () => {
+    // By hand, a group 27 (12 1/16 x 6 13/16 x 8 7/8 in, BCI group size chart) upright in 27 x 13 1/2 x 21 in:
+    // as one lies (length fore and aft), 2 x 12 1/16 = 24 1/8 <= 27 < 3 x 12 1/16 = 36 3/16;
+    // turned (width fore and aft), 3 x 6 13/16 = 20 7/16 <= 27 < 4 x 6 13/16 = 27 1/4: so 3, turned.
+    const r = await get("api.fit.check", "item=12 1/16 x 6 13/16 x 8 7/8&space=27 x 13 1/2 x 21&upright=true");
+    expect(r.body).toMatchObject({ fits: true, inARow: 3, row: { count: 3, along: "length" } });
+    expect(r.body.row.orientation.upright).toBe(true);
+    expect(r.body.row.orientation.placement.length).toBe("width");
+    // One item alone.
+    const one = await get("api.fit.check", "item=12 1/16 x 6 13/16 x 8 7/8&space=12 9/16 x 7 5/16 x 9 3/8&upright=true");
+    expect(one.body).toMatchObject({ inARow: 1, row: null });
+  });
+
   it("says when only the opening is too small", async () => {
     const r = await get("api.fit.check", "item=13x6.8125x9.4375&space=16x10x12&opening=12x10&face=top&upright=true");
     expect(r.body).toMatchObject({ fits: false, verdict: "opening-too-small", throughOpening: false });
