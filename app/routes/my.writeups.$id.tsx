@@ -1,7 +1,7 @@
 import { getFormProps, getInputProps, getTextareaProps, useForm } from "@conform-to/react";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { useEffect, useRef, useState } from "react";
-import { data, Form, Link, useFetcher, useLocation, useNavigation } from "react-router";
+import { data, type ShouldRevalidateFunctionArgs, Form, Link, useFetcher, useLocation, useNavigation } from "react-router";
 import type { Route } from "./+types/my.writeups.$id";
 import { CautionList } from "~/components/cautions";
 import { PhotoUploader } from "~/components/photo-uploader";
@@ -94,6 +94,15 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     },
     { headers },
   );
+}
+
+/**
+ * The live preview posts to /api/preview, which changes nothing: the editor's data is not read
+ * again after it (that would also take away a notice such as "Draft saved.", which is read once).
+ */
+export function shouldRevalidate({ formAction, defaultShouldRevalidate }: ShouldRevalidateFunctionArgs) {
+  if (formAction === "/api/preview") return false;
+  return defaultShouldRevalidate;
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
