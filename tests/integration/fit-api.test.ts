@@ -1,13 +1,13 @@
 // The JSON API of the spaces and the fit check (README, "API"), through the route modules'
 // loaders, against a database of this file's own.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { closeAppDatabase } from "../support/app";
 import { createTestDatabase } from "../support/db";
 import { expectedUpright, mainForFit, readSeedSpaces } from "../support/seed-spaces";
 
 let t: Awaited<ReturnType<typeof createTestDatabase>>;
 type Loader = (args: { request: Request; params: Record<string, string>; context: unknown }) => Promise<Response> | Response;
 const routes: Record<string, Loader> = {};
-let appPool: { end(): Promise<void> } | undefined;
 
 beforeAll(async () => {
   t = await createTestDatabase("template_seeded");
@@ -16,14 +16,8 @@ beforeAll(async () => {
   for (const name of ["api.fit", "api.fit.check", "api.spaces", "api.space"]) {
     routes[name] = ((await import(`~/routes/${name}.ts`)) as { loader: Loader }).loader;
   }
-  appPool = (await import("~/db/index.server")).pool;
 });
-afterAll(async () => {
-  const { db } = await import("~/db/index.server");
-  await (await import("~/models/spaces.server")).endFitSearchPool(db);
-  await appPool?.end();
-  await t?.drop();
-});
+afterAll(() => closeAppDatabase(t));
 
 async function get(route: string, query: string, params: Record<string, string> = {}) {
   const response = await routes[route]({ request: new Request(`http://localhost/${route}?${query}`), params, context: {} });

@@ -12,14 +12,13 @@
 //   its second section, "forward taper at the stem", 5 x 8 x 9 in, nobody has measured.
 import { sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { appDatabase, cookieFrom, formRequest, getRequest, settle } from "../support/app";
+import { appDatabase, closeAppDatabase, cookieFrom, formRequest, getRequest, settle } from "../support/app";
 
 let t: Awaited<ReturnType<typeof appDatabase>>;
 let space: typeof import("~/routes/space");
 let apiFit: typeof import("~/routes/api.fit");
 let apiSpace: typeof import("~/routes/api.space");
 let signIn: typeof import("~/routes/sign-in");
-let appPool: { end(): Promise<void> };
 let DEMO_PASSWORD: string;
 
 const IN = 25.4;
@@ -32,14 +31,8 @@ beforeAll(async () => {
     import("~/routes/space"), import("~/routes/api.fit"), import("~/routes/api.space"), import("~/routes/sign-in"),
   ]);
   ({ DEMO_PASSWORD } = await import("../../scripts/seed-content"));
-  appPool = (await import("~/db/index.server")).pool;
 });
-afterAll(async () => {
-  const { db } = await import("~/db/index.server");
-  await (await import("~/models/spaces.server")).endFitSearchPool(db);
-  await appPool?.end();
-  await t?.drop();
-});
+afterAll(() => closeAppDatabase(t));
 
 async function signInAs(email: string) {
   const address = `198.18.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}`; // RFC 2544 benchmarking range

@@ -5,23 +5,16 @@ import { createElement } from "react";
 import { renderToString } from "react-dom/server";
 import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { appDatabase, getRequest, settle } from "../support/app";
+import { appDatabase, closeAppDatabase, getRequest, settle } from "../support/app";
 
 let t: Awaited<ReturnType<typeof appDatabase>>;
 let route: typeof import("~/routes/search");
-let appPool: { end(): Promise<void> } | undefined;
 
 beforeAll(async () => {
   t = await appDatabase("template_seeded");
   route = await import("~/routes/search");
-  appPool = (await import("~/db/index.server")).pool;
 });
-afterAll(async () => {
-  const { db } = await import("~/db/index.server");
-  await (await import("~/models/spaces.server")).endFitSearchPool(db);
-  await appPool?.end();
-  await t?.drop();
-});
+afterAll(() => closeAppDatabase(t));
 
 type Loaded = { status: number; data: any };
 

@@ -9,6 +9,17 @@ export async function appDatabase(template: "template_empty" | "template_seeded"
   return t;
 }
 
+/**
+ * Closes what the app's modules opened against the file's database (its pool, and the fit
+ * search's own), then drops the database: the afterAll of a file that imported the app's modules.
+ */
+export async function closeAppDatabase(t: { drop(): Promise<void> } | undefined) {
+  const { db, pool } = await import("~/db/index.server");
+  await (await import("~/models/spaces.server")).endFitSearchPool(db);
+  await pool.end();
+  await t?.drop();
+}
+
 export const ORIGIN = "http://127.0.0.1:3000";
 
 export function formRequest(path: string, fields: Record<string, string | string[]>, opts: { cookie?: string; address?: string } = {}) {
