@@ -11,7 +11,7 @@ import type pg from "pg";
 import { MAX_LIMIT } from "~/domain/fit-search";
 import { describeHullRange, LAST_HULL, VARIANTS, type HullRange } from "~/domain/hulls";
 import {
-  anyOfWords, FEW_RESULTS, HIT_END, HIT_START, MATCH_CAP, queryWords, TITLE_CANDIDATES, wordStarts, readHeadline, replaceWords, typeaheadWords,
+  anyOfWords, FEW_RESULTS, hasSearchWords, HIT_END, HIT_START, MATCH_CAP, queryWords, TITLE_CANDIDATES, wordStarts, readHeadline, replaceWords, typeaheadWords,
   type SearchFilters, type SearchKind, type SearchRequest, type Snippet,
 } from "~/domain/search";
 import type { Box } from "~/domain/units";
@@ -455,7 +455,7 @@ export async function analyseQuery(db: DbOrTx, words: string): Promise<QueryAnal
  * finds little gets a "did you mean" from the vocabulary. Most searches are one statement.
  */
 export async function search(db: DbOrTx, req: SearchRequest): Promise<SearchAnswer> {
-  const words = queryWords(req.q).length ? req.q : null;
+  const words = hasSearchWords(req.q) ? req.q : null;
   const fitIds = await fittingSpaceIds(db, req.filters);
   let ranked = await page(db, words, req.filters, fitIds, req.limit, req.offset);
   let analysis = ranked.analysis;
@@ -572,10 +572,12 @@ export function hullChoices(ownHulls: number[], asked: SearchFilters["hull"]): H
  * The counts are made from the matches of the words (and the box to fit), at most MATCH_CAP + 1
  * of each kind read: when there are more, `counted` is false and the choices come without counts.
  */
-export async function searchFacets(db: DbOrTx, req: SearchRequest, choices: HullChoice[]): Promise<Facets> {
+export async function searchFacets(
+  db: DbOrTx, req: SearchRequest, choices: HullChoice[], taxonomy?: Awaited<ReturnType<typeof searchTaxonomy>>,
+): Promise<Facets> {
   const f = req.filters;
   const fitIds = await fittingSpaceIds(db, f);
-  const words = queryWords(req.q).length ? req.q : null;
+  const words = hasSearchWords(req.q) ? req.q : null;
   const match = (alias: string) => (words === null ? sql`true` : sql`${sql.raw(alias)}.search @@ (select query from q)`);
   const ids = fitIds === null ? null : sql`${`{${fitIds.join(",")}}`}::int[]`;
   const fits = (expr: SQL) => (ids === null ? sql`true` : expr);
@@ -643,7 +645,8 @@ export async function searchFacets(db: DbOrTx, req: SearchRequest, choices: Hull
     union all
     select 'year', year::text, count(*)::int from m where year is not null and ${except("year")} group by year`);
 
-  const names = await searchTaxonomy(db);
+  // The systems and zones, unless the caller has read them already.
+  const names = taxonomy ?? (await searchTaxonomy(db));
   const counted = (r.rows.find((c) => c.facet === "capped")?.count ?? 0) === 0;
   const counts = counted ? r.rows : [];
   const pick = (facet: string) => counts.filter((c) => c.facet === facet);

@@ -85,7 +85,7 @@ export async function loader({ request }: Route.LoaderArgs) {
       answer = { ...instead, suggestion: null };
     }
   }
-  const facets = await searchFacets(db, { ...req, q: answer.words }, hullChoices(ownHulls, req.filters.hull));
+  const facets = await searchFacets(db, { ...req, q: answer.words }, hullChoices(ownHulls, req.filters.hull), taxonomy);
   const f = req.filters;
   const beyond = answer.total > 0 && parsed.page > pageCount(answer.total);
   return data({
